@@ -1,0 +1,96 @@
+"""The Zeffir computation core: numpy and scipy only, no Qt, no plotting.
+
+Everything a script or notebook needs::
+
+    from zeffir.core import parse_spec, build, Plane, orbital_on_plane
+    orbitals = build("Na", model="clementi")
+    orbitals.orbital("3s").z_eff          # 2.5074
+"""
+
+from zeffir.core._errors import ModelError, QuantumNumberError, SpecError, ZeffirError
+from zeffir.core._units import (
+    ANGSTROM_PER_BOHR,
+    CODATA_EDITION,
+    EV_PER_HARTREE,
+    bohr_to_angstrom,
+    hartree_to_ev,
+)
+from zeffir.core.config import (
+    Configuration,
+    Element,
+    Subshell,
+    element,
+    elements,
+    madelung_order,
+    parse_spec,
+)
+from zeffir.core.density import (
+    Plane,
+    cumulative_charge,
+    density_on_plane,
+    orbital_density_on_plane,
+    orbital_on_plane,
+    radial_grid,
+    spherical_density,
+    subshell_distributions,
+    total_distribution,
+)
+from zeffir.core.models import DEFAULT_MODEL, build, get_model, model_names
+from zeffir.core.orbitals import (
+    HydrogenicRadial,
+    OrbitalSet,
+    RadialFunction,
+    SlaterRadial,
+    SubshellOrbital,
+    TabulatedRadial,
+    complex_harmonic,
+    real_harmonic,
+    real_labels,
+    solid_harmonic,
+)
+from zeffir.core.properties import SubshellSummary, moments, subshell_table
+
+__all__ = [
+    "ANGSTROM_PER_BOHR",
+    "CODATA_EDITION",
+    "DEFAULT_MODEL",
+    "EV_PER_HARTREE",
+    "Configuration",
+    "Element",
+    "HydrogenicRadial",
+    "ModelError",
+    "OrbitalSet",
+    "Plane",
+    "QuantumNumberError",
+    "RadialFunction",
+    "SlaterRadial",
+    "SpecError",
+    "Subshell",
+    "SubshellOrbital",
+    "SubshellSummary",
+    "TabulatedRadial",
+    "ZeffirError",
+    "bohr_to_angstrom",
+    "build",
+    "complex_harmonic",
+    "cumulative_charge",
+    "density_on_plane",
+    "element",
+    "elements",
+    "get_model",
+    "hartree_to_ev",
+    "madelung_order",
+    "model_names",
+    "moments",
+    "orbital_density_on_plane",
+    "orbital_on_plane",
+    "parse_spec",
+    "radial_grid",
+    "real_harmonic",
+    "real_labels",
+    "solid_harmonic",
+    "spherical_density",
+    "subshell_distributions",
+    "subshell_table",
+    "total_distribution",
+]

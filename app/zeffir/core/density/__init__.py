@@ -1,0 +1,35 @@
+"""Densities: radial curves, cumulative charge and plane slices."""
+
+from zeffir.core.density._plane import MAX_RESOLUTION, NAMED_PLANES, Plane
+from zeffir.core.density._radial_curves import (
+    cumulative_charge,
+    radial_grid,
+    spherical_density,
+    subshell_distributions,
+    total_distribution,
+)
+from zeffir.core.density._slices import (
+    density_on_plane,
+    density_on_plane_direct,
+    orbital_density_on_plane,
+    orbital_on_plane,
+    orbital_on_plane_direct,
+    plane_polynomial,
+)
+
+__all__ = [
+    "MAX_RESOLUTION",
+    "NAMED_PLANES",
+    "Plane",
+    "cumulative_charge",
+    "density_on_plane",
+    "density_on_plane_direct",
+    "orbital_density_on_plane",
+    "orbital_on_plane",
+    "orbital_on_plane_direct",
+    "plane_polynomial",
+    "radial_grid",
+    "spherical_density",
+    "subshell_distributions",
+    "total_distribution",
+]

@@ -1,0 +1,96 @@
+"""Radial distributions, cumulative charge and the spherically averaged density."""
+
+from __future__ import annotations
+
+import numpy as np
+import numpy.typing as npt
+
+from zeffir.core.orbitals import FloatArray, OrbitalSet
+
+__all__ = [
+    "cumulative_charge",
+    "radial_grid",
+    "spherical_density",
+    "subshell_distributions",
+    "total_distribution",
+]
+
+
+def radial_grid(orbitals: OrbitalSet, points: int = 2000, r_max: float | None = None) -> FloatArray:
+    """A grid from 0 to ``r_max`` (default: where the outermost subshell has ended), r ∝ t².
+
+    The quadratic spacing puts points where the core subshells vary fastest.
+    """
+    top = r_max if r_max is not None else max(o.radial.extent(1e-8) for o in orbitals.orbitals)
+    t = np.linspace(0.0, np.sqrt(top), points)
+    return t * t
+
+
+def subshell_distributions(
+    orbitals: OrbitalSet, r: npt.ArrayLike, weighted: bool = True
+) -> dict[str, FloatArray]:
+    """Radial distribution of each subshell on ``r``.
+
+    Parameters
+    ----------
+    orbitals : OrbitalSet
+    r : array_like
+        Radii (bohr).
+    weighted : bool
+        Multiply D(r) = r²R² by the occupancy (True) or keep it per electron.
+
+    Returns
+    -------
+    dict
+        ``{label: D}`` in bohr⁻¹; with weighting each integrates to the occupancy.
+    """
+    rr = np.asarray(r, dtype=float)
+    return {
+        o.label: o.radial.distribution(rr) * (o.occupancy if weighted else 1.0)
+        for o in orbitals.orbitals
+    }
+
+
+def total_distribution(orbitals: OrbitalSet, r: npt.ArrayLike) -> FloatArray:
+    """Radial distribution of the atom, Σ occ · r²R², integrating to the electron count."""
+    rr = np.asarray(r, dtype=float)
+    out = np.zeros_like(rr)
+    for o in orbitals.orbitals:
+        out += o.occupancy * o.radial.distribution(rr)
+    return out
+
+
+def cumulative_charge(orbitals: OrbitalSet, r: npt.ArrayLike, label: str | None = None) -> FloatArray:
+    """Q(r): electrons inside radius r, for the atom or for one subshell (occupancy-weighted).
+
+    Notes
+    -----
+    Q(r) = Σ occ ∫₀^r r'² R(r')² dr'; Q(∞) equals the electron count.
+    """
+    rr = np.asarray(r, dtype=float)
+    chosen = orbitals.orbitals if label is None else (orbitals.orbital(label),)
+    out = np.zeros_like(rr)
+    for o in chosen:
+        out += o.occupancy * o.radial.cumulative(rr)
+    return out
+
+
+def spherical_density(orbitals: OrbitalSet, r: npt.ArrayLike) -> FloatArray:
+    """Spherically averaged electron density ρ(r) = Σ occ R(r)² / 4π (bohr⁻³).
+
+    Notes
+    -----
+    For a closed subshell Σ_m |Y_lm|² = (2l+1)/4π (Unsöld's theorem), so the
+    density is exactly spherical; for an open subshell this is its spherical
+    average. ∫ ρ 4πr² dr equals the electron count.
+
+    References
+    ----------
+    A. Unsöld, Ann. Phys. 387, 355 (1927).
+    """
+    rr = np.asarray(r, dtype=float)
+    out = np.zeros_like(rr)
+    for o in orbitals.orbitals:
+        out += o.occupancy * o.radial(rr) ** 2
+    out *= 1.0 / (4.0 * np.pi)
+    return out

@@ -1,0 +1,195 @@
+"""Orbitals and densities on a plane slice.
+
+Two evaluators give the same numbers: a direct one (every point's r and solid
+harmonic) kept as the reference, and the fast one used everywhere else. The fast
+one uses the structure of the problem: the radial factor depends only on
+r² = offset² + u² + v², so on the symmetric grid it is computed on one quadrant
+and mirrored; the solid harmonic r^l Y_lm is a polynomial in (u, v) of degree l,
+so on the grid it is a rank-(l+1) product of two small Vandermonde matrices.
+"""
+
+from __future__ import annotations
+
+from typing import Literal
+
+import numpy as np
+import numpy.typing as npt
+
+from zeffir.core._errors import QuantumNumberError
+from zeffir.core.density._plane import Plane
+from zeffir.core.density._radial_curves import spherical_density
+from zeffir.core.orbitals import (
+    FloatArray,
+    OrbitalSet,
+    SubshellOrbital,
+    solid_harmonic,
+    solid_harmonic_monomials,
+)
+
+__all__ = [
+    "density_on_plane",
+    "density_on_plane_direct",
+    "orbital_density_on_plane",
+    "orbital_on_plane",
+    "orbital_on_plane_direct",
+    "plane_polynomial",
+]
+
+Kind = Literal["real", "complex"]
+
+
+def _check_m(orbital: SubshellOrbital, m: int) -> None:
+    if abs(m) > orbital.l:
+        raise QuantumNumberError(f"m = {m}: |m| must be at most l = {orbital.l} for {orbital.label}")
+
+
+def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:  # noqa: E741
+    """Coefficients C[a, b] of r^l Y_lm restricted to the plane: Σ C[a,b] u^a v^b.
+
+    Substitutes x = offset·n_x + u e1_x + v e2_x (and likewise y, z) into the
+    Cartesian monomials of :func:`solid_harmonic_monomials`.
+    """
+    n, e1, e2 = plane.basis()
+    linear = [np.array([[plane.offset * n[k], e2[k]], [e1[k], 0.0]]) for k in range(3)]
+    out = np.zeros((l + 1, l + 1))
+    powers: list[list[FloatArray]] = []
+    for k in range(3):
+        table = [np.ones((1, 1))]
+        for _ in range(l):
+            table.append(_polymul2(table[-1], linear[k]))
+        powers.append(table)
+    for (a, b, c), coeff in solid_harmonic_monomials(l, m):
+        term = _polymul2(_polymul2(powers[0][a], powers[1][b]), powers[2][c])
+        out[: term.shape[0], : term.shape[1]] += coeff * term
+    return out
+
+
+def _polymul2(p: FloatArray, q: FloatArray) -> FloatArray:
+    out = np.zeros((p.shape[0] + q.shape[0] - 1, p.shape[1] + q.shape[1] - 1))
+    for i in range(q.shape[0]):
+        for j in range(q.shape[1]):
+            if q[i, j]:
+                out[i : i + p.shape[0], j : j + p.shape[1]] += q[i, j] * p
+    return out
+
+
+def _angular_grid(l: int, m: int, plane: Plane) -> FloatArray:  # noqa: E741
+    coeffs = plane_polynomial(l, m, plane)
+    c = plane.coordinates()
+    vander = np.vander(c, l + 1, increasing=True)  # [i, a] = c_i^a
+    # A[j, i] = Σ_ab C[a, b] u_i^a v_j^b
+    return np.asarray(vander @ coeffs.T @ vander.T, dtype=float)
+
+
+def _quadrant_radii(plane: Plane) -> FloatArray:
+    c = plane.coordinates()
+    half = c[plane.resolution // 2 :]
+    sq = half * half
+    return np.sqrt(plane.offset**2 + sq[:, None] + sq[None, :])
+
+
+def _mirror_blocks(k: int, quadrant: FloatArray) -> list[tuple[tuple[slice, slice], FloatArray]]:
+    h = k // 2
+    flipped_rows = quadrant[::-1][:h]
+    return [
+        ((slice(h, k), slice(h, k)), quadrant),
+        ((slice(h, k), slice(0, h)), quadrant[:, ::-1][:, :h]),
+        ((slice(0, h), slice(h, k)), flipped_rows),
+        ((slice(0, h), slice(0, h)), flipped_rows[:, ::-1][:, :h]),
+    ]
+
+
+def _multiply_mirrored(out: FloatArray, quadrant: FloatArray) -> FloatArray:
+    for index, block in _mirror_blocks(out.shape[0], quadrant):
+        out[index] *= block
+    return out
+
+
+def _fill_mirrored(k: int, quadrant: FloatArray) -> FloatArray:
+    out = np.empty((k, k))
+    for index, block in _mirror_blocks(k, quadrant):
+        out[index] = block
+    return out
+
+
+def orbital_on_plane(
+    orbital: SubshellOrbital, plane: Plane, m: int = 0, kind: Kind = "real"
+) -> FloatArray | npt.NDArray[np.complex128]:
+    """Signed one-electron orbital ψ_nlm on a plane slice (bohr^-3/2).
+
+    Parameters
+    ----------
+    orbital : SubshellOrbital
+        The subshell's radial function.
+    plane : Plane
+        Where to evaluate.
+    m : int
+        Real order (``kind="real"``: m > 0 cos, m < 0 sin; see
+        :func:`~zeffir.core.orbitals.real_label`) or magnetic quantum number
+        (``kind="complex"``).
+    kind : {"real", "complex"}
+        Real orbital (a real array) or complex Y_l^m with the Condon–Shortley
+        phase (a complex array).
+
+    Returns
+    -------
+    ndarray, shape (resolution, resolution)
+        ``psi[j, i]`` at u = coordinates[i], v = coordinates[j].
+
+    Notes
+    -----
+    ψ = [R(r)/r^l] · r^l Y_lm(x, y, z). For complex m,
+    Y_l^m = (-1)^m (S_l|m| + i S_l,-|m|)/√2 for m > 0 and (S_l|m| - i S_l,-|m|)/√2
+    for m < 0, with S the real solid harmonics.
+    """
+    _check_m(orbital, m)
+    if kind == "complex":
+        if m == 0:
+            return orbital_on_plane(orbital, plane, 0, "real").astype(complex)
+        re = orbital_on_plane(orbital, plane, abs(m), "real")
+        im = orbital_on_plane(orbital, plane, -abs(m), "real")
+        phase = (-1) ** abs(m) if m > 0 else 1
+        sign = 1 if m > 0 else -1
+        return phase * (re + sign * 1j * im) / np.sqrt(2.0)
+    if kind != "real":
+        raise QuantumNumberError(f"{kind}: kind must be 'real' or 'complex'")
+    out = _angular_grid(orbital.l, m, plane)
+    radial = orbital.radial.over_r_l(_quadrant_radii(plane))
+    return _multiply_mirrored(out, radial)
+
+
+def orbital_on_plane_direct(
+    orbital: SubshellOrbital, plane: Plane, m: int = 0
+) -> FloatArray:
+    """Reference evaluation of a real orbital point by point (slow; for tests)."""
+    _check_m(orbital, m)
+    x, y, z = plane.points()
+    r = np.sqrt(x * x + y * y + z * z)
+    return orbital.radial.over_r_l(r) * solid_harmonic(orbital.l, m, x, y, z)
+
+
+def orbital_density_on_plane(
+    orbital: SubshellOrbital, plane: Plane, m: int = 0, kind: Kind = "real"
+) -> FloatArray:
+    """|ψ|² of one orbital on a plane slice (bohr⁻³)."""
+    psi = orbital_on_plane(orbital, plane, m, kind)
+    return np.asarray(psi.real**2 + psi.imag**2 if np.iscomplexobj(psi) else psi * psi)
+
+
+def density_on_plane(orbitals: OrbitalSet, plane: Plane) -> FloatArray:
+    """Total electron density of the configuration on a plane slice (bohr⁻³).
+
+    Notes
+    -----
+    Closed subshells are exactly spherical (Unsöld's theorem); open subshells are
+    spherically averaged here, as in an average-of-configuration description.
+    The radial profile is evaluated on one quadrant of the grid and mirrored.
+    """
+    quadrant = spherical_density(orbitals, _quadrant_radii(plane))
+    return _fill_mirrored(plane.resolution, quadrant)
+
+
+def density_on_plane_direct(orbitals: OrbitalSet, plane: Plane) -> FloatArray:
+    """Reference evaluation of :func:`density_on_plane` point by point (for tests)."""
+    x, y, z = plane.points()
+    return spherical_density(orbitals, np.sqrt(x * x + y * y + z * z))

@@ -1,0 +1,38 @@
+"""Models: each turns a Configuration into an OrbitalSet. Adding a model is adding a module."""
+
+from zeffir.core.models._clementi import ClementiModel, clementi_z_eff
+from zeffir.core.models._hydrogenic import HydrogenicModel
+from zeffir.core.models._registry import (
+    DEFAULT_MODEL,
+    Model,
+    build,
+    get_model,
+    model_names,
+    register,
+)
+from zeffir.core.models._slater_rules import (
+    SLATER_N_STAR,
+    SlaterRulesModel,
+    slater_n_star,
+    slater_screening,
+)
+
+register(HydrogenicModel())
+register(SlaterRulesModel())
+register(ClementiModel())
+
+__all__ = [
+    "DEFAULT_MODEL",
+    "SLATER_N_STAR",
+    "ClementiModel",
+    "HydrogenicModel",
+    "Model",
+    "SlaterRulesModel",
+    "build",
+    "clementi_z_eff",
+    "get_model",
+    "model_names",
+    "register",
+    "slater_n_star",
+    "slater_screening",
+]

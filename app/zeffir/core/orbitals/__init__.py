@@ -1,0 +1,37 @@
+"""Radial functions, spherical harmonics and the orbital sets models produce."""
+
+from zeffir.core.orbitals._angular import (
+    Monomials,
+    complex_harmonic,
+    real_harmonic,
+    real_label,
+    real_labels,
+    real_m_from_label,
+    solid_harmonic,
+    solid_harmonic_monomials,
+)
+from zeffir.core.orbitals._hydrogenic import HydrogenicRadial, laguerre
+from zeffir.core.orbitals._orbital_set import OrbitalSet, SubshellOrbital
+from zeffir.core.orbitals._radial import FloatArray, RadialFunction
+from zeffir.core.orbitals._slater_type import SlaterRadial
+from zeffir.core.orbitals._tabulated import TabulatedRadial, log_grid
+
+__all__ = [
+    "FloatArray",
+    "HydrogenicRadial",
+    "Monomials",
+    "OrbitalSet",
+    "RadialFunction",
+    "SlaterRadial",
+    "SubshellOrbital",
+    "TabulatedRadial",
+    "complex_harmonic",
+    "laguerre",
+    "log_grid",
+    "real_harmonic",
+    "real_label",
+    "real_labels",
+    "real_m_from_label",
+    "solid_harmonic",
+    "solid_harmonic_monomials",
+]

@@ -1,0 +1,99 @@
+"""What a model returns: one radial function and its parameters per occupied subshell."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from zeffir.core._errors import QuantumNumberError
+from zeffir.core.config import Configuration, Subshell
+from zeffir.core.orbitals._radial import RadialFunction
+
+__all__ = ["OrbitalSet", "SubshellOrbital"]
+
+
+@dataclass(frozen=True, slots=True)
+class SubshellOrbital:
+    """One occupied subshell under a model.
+
+    Attributes
+    ----------
+    subshell : Subshell
+        n and l.
+    occupancy : int
+        Electrons in the subshell.
+    radial : RadialFunction
+        Its radial function, normalised.
+    zeta : float
+        Orbital exponent ζ (bohr⁻¹): Z/n for hydrogenic, Z_eff/n* for Slater-type.
+    z_eff : float
+        Effective nuclear charge felt by an electron of this subshell.
+    n_star : float or None
+        Effective principal quantum number where the model has one.
+    energy : float or None
+        Orbital energy (hartree) where the model defines one.
+    notes : tuple of str
+        Where a value fell back to another rule, and why.
+    """
+
+    subshell: Subshell
+    occupancy: int
+    radial: RadialFunction
+    zeta: float
+    z_eff: float
+    n_star: float | None
+    energy: float | None
+    notes: tuple[str, ...] = ()
+
+    @property
+    def label(self) -> str:
+        """Subshell label, e.g. ``'3d'``."""
+        return self.subshell.label
+
+    @property
+    def n(self) -> int:
+        """Principal quantum number."""
+        return self.subshell.n
+
+    @property
+    def l(self) -> int:  # noqa: E743 - the trade's own symbol
+        """Orbital angular momentum quantum number."""
+        return self.subshell.l
+
+
+@dataclass(frozen=True, slots=True)
+class OrbitalSet:
+    """The orbitals of one configuration under one model.
+
+    Attributes
+    ----------
+    configuration : Configuration
+        What was evaluated.
+    model : str
+        Registry name of the model.
+    orbitals : tuple of SubshellOrbital
+        One per occupied subshell, ordered by (n, l).
+    total_energy : float or None
+        Total energy (hartree) where the model defines one.
+    notes : tuple of str
+        Remarks that apply to the whole set.
+    """
+
+    configuration: Configuration
+    model: str
+    orbitals: tuple[SubshellOrbital, ...]
+    total_energy: float | None = None
+    notes: tuple[str, ...] = ()
+
+    def orbital(self, label: str | Subshell) -> SubshellOrbital:
+        """The orbital of a subshell given by label (``'2p'``) or :class:`Subshell`."""
+        key = label.label if isinstance(label, Subshell) else str(label).strip()
+        for item in self.orbitals:
+            if item.label == key:
+                return item
+        occupied = " ".join(o.label for o in self.orbitals)
+        raise QuantumNumberError(f"{key}: not occupied in this configuration ({occupied})")
+
+    @property
+    def labels(self) -> tuple[str, ...]:
+        """Labels of the occupied subshells."""
+        return tuple(o.label for o in self.orbitals)

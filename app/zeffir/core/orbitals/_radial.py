@@ -1,0 +1,115 @@
+"""The interface every radial function shares, with generic numerical fallbacks."""
+
+from __future__ import annotations
+
+from abc import ABC, abstractmethod
+
+import numpy as np
+import numpy.typing as npt
+from scipy import integrate, optimize
+
+__all__ = ["FloatArray", "RadialFunction"]
+
+FloatArray = npt.NDArray[np.float64]
+
+
+class RadialFunction(ABC):
+    """A radial function R(r) in atomic units, normalised as ∫ R² r² dr = 1.
+
+    Subclasses implement :meth:`__call__` and :meth:`extent`; the other methods
+    have numerical defaults that subclasses replace with closed forms where they
+    exist.
+
+    Attributes
+    ----------
+    n : int
+        Principal quantum number of the subshell it describes (a label).
+    l : int
+        Orbital angular momentum quantum number.
+    """
+
+    n: int
+    l: int  # noqa: E741 - the trade's own symbol
+    kind: str = "radial"
+
+    @abstractmethod
+    def __call__(self, r: npt.ArrayLike) -> FloatArray:
+        """Evaluate R(r) on any array of r (bohr); returns bohr^(-3/2)."""
+
+    @abstractmethod
+    def extent(self, tail: float = 1e-14) -> float:
+        """Radius (bohr) beyond which the fraction of the electron left is below ``tail``."""
+
+    def over_r_l(self, r: npt.ArrayLike) -> FloatArray:
+        """R(r) / r^l, the smooth factor that multiplies a solid harmonic r^l Y_lm.
+
+        The default divides; subclasses with a closed form avoid 0/0 at r = 0.
+        """
+        rr = np.asarray(r, dtype=float)
+        out = self(rr)
+        if self.l == 0:
+            return out
+        with np.errstate(divide="ignore", invalid="ignore"):
+            out = out / rr**self.l
+        return np.where(rr > 0, out, 0.0)
+
+    def p(self, r: npt.ArrayLike) -> FloatArray:
+        """P(r) = r R(r)."""
+        rr = np.asarray(r, dtype=float)
+        return rr * self(rr)
+
+    def distribution(self, r: npt.ArrayLike) -> FloatArray:
+        """Radial distribution per electron, D(r) = r² R(r)² (bohr^-1)."""
+        rr = np.asarray(r, dtype=float)
+        return (rr * self(rr)) ** 2
+
+    def quadrature_grid(self, points: int = 4001) -> FloatArray:
+        """A grid from 0 to :meth:`extent`, denser near the nucleus (r ∝ t²)."""
+        t = np.linspace(0.0, np.sqrt(self.extent()), points)
+        return t * t
+
+    def expectation(self, k: int) -> float:
+        """<r^k> = ∫ R² r^(2+k) dr in bohr^k, by quadrature in t = √r.
+
+        Returns ``inf`` where the integral diverges (k <= -2l - 3).
+        """
+        if k <= -2 * self.l - 3:
+            return float("inf")
+        t = np.linspace(0.0, np.sqrt(self.extent()), 8001)[1:]
+        r = t * t
+        integrand = self(r) ** 2 * r ** (2 + k) * 2 * t
+        return float(integrate.simpson(integrand, x=t))
+
+    def norm(self) -> float:
+        """∫ R² r² dr, which is 1 for a normalised function."""
+        return self.expectation(0)
+
+    def nodes(self) -> FloatArray:
+        """Radii (bohr) of the radial nodes, from sign changes refined by root finding."""
+        r = self.quadrature_grid(20001)[1:]
+        values = self(r)
+        where = np.nonzero(np.signbit(values[:-1]) != np.signbit(values[1:]))[0]
+        roots = [optimize.brentq(lambda x: float(self(np.array([x]))[0]), r[i], r[i + 1],
+                                 xtol=1e-14, rtol=1e-14) for i in where]
+        return np.asarray(roots, dtype=float)
+
+    def r_max(self) -> float:
+        """Radius (bohr) of the highest maximum of the radial distribution D(r)."""
+        r = self.quadrature_grid(20001)
+        d = self.distribution(r)
+        i = int(np.argmax(d))
+        lo, hi = r[max(i - 1, 0)], r[min(i + 1, r.size - 1)]
+        found = optimize.minimize_scalar(
+            lambda x: -float(self.distribution(np.array([x]))[0]),
+            bounds=(lo, hi), method="bounded", options={"xatol": 1e-12},
+        )
+        return float(found.x)
+
+    def cumulative(self, r: npt.ArrayLike) -> FloatArray:
+        """Q(r) = ∫₀^r D(r') dr', the fraction of one electron inside radius r."""
+        rr = np.asarray(r, dtype=float)
+        top = max(float(np.max(rr, initial=0.0)), self.extent())
+        t = np.linspace(0.0, np.sqrt(top), 16001)
+        grid = t * t
+        q = integrate.cumulative_simpson(self.distribution(grid) * 2 * t, x=t, initial=0.0)
+        return np.interp(rr, grid, q)

@@ -1,0 +1,1 @@
+"""Published data tables and demo files shipped with Zeffir (installed as ``zeffir.resources``)."""
