@@ -156,11 +156,11 @@ def parse_spec(text: str) -> Configuration:
     if not isinstance(text, str):
         raise SpecError(f"{text!r}: a spec must be text")
     stripped = text.strip()
-    if not stripped:
-        raise SpecError("empty spec: type an element symbol or atomic number, e.g. Fe or 26")
     if len(stripped) > _MAX_SPEC_LENGTH:
         raise SpecError(f"spec too long: at most {_MAX_SPEC_LENGTH} characters")
     tokens = [tok for tok in _SEPARATORS.split(stripped) if tok]
+    if not tokens:
+        raise SpecError("empty spec: type an element symbol or atomic number, e.g. Fe or 26")
     head = tokens.pop(0)
     match = _ELEMENT.match(head)
     if match is None:

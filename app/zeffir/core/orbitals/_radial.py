@@ -94,16 +94,25 @@ class RadialFunction(ABC):
         return np.asarray(roots, dtype=float)
 
     def r_max(self) -> float:
-        """Radius (bohr) of the highest maximum of the radial distribution D(r)."""
+        """Radius (bohr) of the highest maximum of the radial distribution D(r).
+
+        The maximum is bracketed on a grid, then located as the root of the
+        symmetric difference P(r(1+δ)) - P(r(1-δ)) — a zero of P' — which is far
+        better conditioned than searching the flat top of D itself.
+        """
         r = self.quadrature_grid(20001)
         d = self.distribution(r)
         i = int(np.argmax(d))
-        lo, hi = r[max(i - 1, 0)], r[min(i + 1, r.size - 1)]
-        found = optimize.minimize_scalar(
-            lambda x: -float(self.distribution(np.array([x]))[0]),
-            bounds=(lo, hi), method="bounded", options={"xatol": 1e-12},
-        )
-        return float(found.x)
+        lo, hi = r[max(i - 1, 1)], r[min(i + 1, r.size - 1)]
+        delta = 1e-6
+
+        def slope(x: float) -> float:
+            pair = self.p(np.array([x * (1 + delta), x * (1 - delta)]))
+            return float(pair[0] - pair[1])
+
+        if slope(lo) * slope(hi) >= 0:
+            return float(r[i])
+        return float(optimize.brentq(slope, lo, hi, xtol=1e-15, rtol=1e-14))
 
     def cumulative(self, r: npt.ArrayLike) -> FloatArray:
         """Q(r) = ∫₀^r D(r') dr', the fraction of one electron inside radius r."""
