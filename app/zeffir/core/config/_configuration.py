@@ -50,7 +50,7 @@ class Configuration:
     explicit: bool
 
     @property
-    def Z(self) -> int:  # noqa: N802 - the trade's own symbol
+    def Z(self) -> int:
         """Atomic number."""
         return self.element.Z
 

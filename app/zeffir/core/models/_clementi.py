@@ -5,8 +5,8 @@ from __future__ import annotations
 from dataclasses import dataclass
 from functools import cache
 
-from zeffir.core.config import Configuration, Subshell
 from zeffir.core._resources import read_table
+from zeffir.core.config import Configuration, Subshell
 from zeffir.core.models._slater_rules import slater_orbital
 from zeffir.core.orbitals import OrbitalSet, SlaterRadial, SubshellOrbital
 
@@ -21,7 +21,7 @@ def _table() -> dict[tuple[int, int, int], tuple[float, str]]:
     }
 
 
-def clementi_z_eff(Z: int, subshell: Subshell) -> tuple[float, str] | None:  # noqa: N803
+def clementi_z_eff(Z: int, subshell: Subshell) -> tuple[float, str] | None:
     """Published Z_eff of a subshell of neutral atom Z and its source tag, or None.
 
     References

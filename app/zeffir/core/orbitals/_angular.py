@@ -110,7 +110,7 @@ def complex_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -
 
 
 @cache
-def _pi_polys(m: int, l_max: int) -> list[Monomials]:  # noqa: E741
+def _pi_polys(m: int, l_max: int) -> list[Monomials]:
     """Π_l^m(z, r²) = r^{l-m} d^m P_l/dt^m (z/r) as polynomials, for l = m..l_max.
 
     Recurrence (l - m) Π_l = (2l - 1) z Π_{l-1} - (l + m - 1) r² Π_{l-2},
