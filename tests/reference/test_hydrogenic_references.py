@@ -18,7 +18,7 @@ def test_matches_sympy_closed_form(n, Z):
     # relative test is meaningless next to the nodes, where both cross zero.
     r_sym = sympy.Symbol("r", positive=True)
     r = np.concatenate(([0.0], np.geomspace(1e-4, 60.0 / Z * n, 60)))
-    for l in range(n):  # noqa: E741
+    for l in range(n):
         exact = sympy.lambdify(r_sym, hydrogen.R_nl(n, l, r_sym, Z), "mpmath")
         reference = np.array([float(exact(x)) for x in r])
         ours = HydrogenicRadial(n, l, float(Z))(r)
@@ -28,7 +28,7 @@ def test_matches_sympy_closed_form(n, Z):
 
 @pytest.mark.parametrize(("n", "l"), [(1, 0), (2, 0), (2, 1), (3, 2), (5, 3), (9, 4), (20, 0), (20, 19)])
 @pytest.mark.parametrize("Z", [1.0, 7.0, 118.0])
-def test_radial_moments_match_closed_forms(n, l, Z):  # noqa: E741
+def test_radial_moments_match_closed_forms(n, l, Z):
     # Bethe & Salpeter (1957), eqs. (3.24)-(3.26):
     #   <r> = (3n² - l(l+1)) / 2Z,  <r²> = n²(5n² + 1 - 3l(l+1)) / 2Z²,
     #   <1/r> = Z/n²,  <1/r²> = Z² / (n³ (l + 1/2)),  <1/r³> = Z³ / (n³ l (l + 1/2)(l + 1)).

@@ -23,7 +23,7 @@ def test_real_harmonics_are_the_standard_combinations_of_complex_ones():
     theta = np.concatenate(([0.0, np.pi], rng.uniform(0, np.pi, 40)))
     phi = np.concatenate(([0.0, 2 * np.pi], rng.uniform(0, 2 * np.pi, 40)))
     with np.errstate(all="raise"):
-        for l in range(7):  # noqa: E741
+        for l in range(7):
             for m in range(-l, l + 1):
                 y = complex_harmonic(l, abs(m), theta, phi)
                 expected = y.real if m == 0 else np.sqrt(2) * (-1) ** m * (y.real if m > 0 else y.imag)
@@ -46,7 +46,7 @@ def test_unsold_sum_rule():
     # Σ_m |Y_lm|² = (2l+1)/4π (Unsöld 1927).
     rng = np.random.default_rng(3)
     th, ph = rng.uniform(0, np.pi, 30), rng.uniform(0, 2 * np.pi, 30)
-    for l in range(7):  # noqa: E741
+    for l in range(7):
         total = sum(real_harmonic(l, m, th, ph) ** 2 for m in range(-l, l + 1))
         np.testing.assert_allclose(total, (2 * l + 1) / (4 * np.pi), rtol=1e-12)
 

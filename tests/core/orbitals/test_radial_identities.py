@@ -20,7 +20,7 @@ def _panel_quadrature(f, top, panels=400, order=20):
 
 @pytest.mark.parametrize("n", range(1, 21))
 def test_hydrogenic_normalised_for_every_n_l(n):
-    for l in range(n):  # noqa: E741
+    for l in range(n):
         R = HydrogenicRadial(n, l, 1.0)
         top = R.extent(1e-18)
         norm = _panel_quadrature(lambda r, R=R: (r * R(r)) ** 2, top)
@@ -28,7 +28,7 @@ def test_hydrogenic_normalised_for_every_n_l(n):
 
 
 @pytest.mark.parametrize("l", [0, 1, 2, 5])
-def test_hydrogenic_same_l_functions_are_orthogonal(l):  # noqa: E741
+def test_hydrogenic_same_l_functions_are_orthogonal(l):
     functions = [HydrogenicRadial(n, l, 3.0) for n in range(l + 1, l + 6)]
     top = max(f.extent(1e-18) for f in functions)
     for i, a in enumerate(functions):
@@ -40,7 +40,7 @@ def test_hydrogenic_same_l_functions_are_orthogonal(l):  # noqa: E741
 def test_hydrogenic_is_finite_for_the_largest_n_and_z():
     r = np.concatenate(([0.0], np.geomspace(1e-8, 1e4, 2000)))
     with np.errstate(all="raise"):
-        for n, l, Z in [(20, 0, 118.0), (20, 19, 118.0), (20, 10, 1.0), (1, 0, 118.0)]:  # noqa: E741
+        for n, l, Z in [(20, 0, 118.0), (20, 19, 118.0), (20, 10, 1.0), (1, 0, 118.0)]:
             R = HydrogenicRadial(n, l, Z)
             values = R(r)
             assert np.all(np.isfinite(values))
@@ -50,12 +50,12 @@ def test_hydrogenic_is_finite_for_the_largest_n_and_z():
 
 def test_gauss_laguerre_norm_equals_one():
     for n in (1, 7, 20):
-        for l in (0, n - 1):  # noqa: E741
+        for l in (0, n - 1):
             assert HydrogenicRadial(n, l, 54.0).norm() == pytest.approx(1.0, abs=1e-12)
 
 
 @pytest.mark.parametrize(("n_star", "zeta", "l"), [(1.0, 1.7, 0), (3.7, 1.2, 2), (4.2, 0.9, 3)])
-def test_slater_closed_forms_agree_with_quadrature(n_star, zeta, l):  # noqa: E741
+def test_slater_closed_forms_agree_with_quadrature(n_star, zeta, l):
     R = SlaterRadial(4, l, n_star, zeta)
     top = R.extent(1e-18)
     for k in (-2, -1, 0, 1, 2):

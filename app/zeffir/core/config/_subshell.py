@@ -35,7 +35,7 @@ class Subshell:
     """
 
     n: int
-    l: int  # noqa: E741 - the trade's own symbol
+    l: int
 
     def __post_init__(self) -> None:
         if not 1 <= self.n <= MAX_N:
@@ -95,7 +95,7 @@ def madelung_order(max_n_plus_l: int = 9) -> list[Subshell]:
         Subshell(n, l)
         for s in range(1, max_n_plus_l + 1)
         for n in range(1, s + 1)
-        for l in [s - n]  # noqa: E741
+        for l in [s - n]
         if l < n and l <= MAX_L and n <= MAX_N
     ]
     return sorted(order, key=lambda sub: (sub.n + sub.l, sub.n))

@@ -49,7 +49,7 @@ def parse_subshell_token(token: str) -> tuple[Subshell, int]:
     n = int(n_text)
     if letter not in L_LETTERS:
         raise SpecError(f"{token}: unknown subshell letter '{letter}' (use {' '.join(L_LETTERS)})")
-    l = L_LETTERS.index(letter)  # noqa: E741
+    l = L_LETTERS.index(letter)
     if not 1 <= n <= MAX_N:
         raise SpecError(f"{token}: n must be between 1 and {MAX_N}")
     if l >= n:

@@ -43,7 +43,7 @@ def _check_m(orbital: SubshellOrbital, m: int) -> None:
         raise QuantumNumberError(f"m = {m}: |m| must be at most l = {orbital.l} for {orbital.label}")
 
 
-def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:  # noqa: E741
+def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:
     """Coefficients C[a, b] of r^l Y_lm restricted to the plane: Σ C[a,b] u^a v^b.
 
     Substitutes x = offset·n_x + u e1_x + v e2_x (and likewise y, z) into the
@@ -73,7 +73,7 @@ def _polymul2(p: FloatArray, q: FloatArray) -> FloatArray:
     return out
 
 
-def _angular_grid(l: int, m: int, plane: Plane) -> FloatArray:  # noqa: E741
+def _angular_grid(l: int, m: int, plane: Plane) -> FloatArray:
     coeffs = plane_polynomial(l, m, plane)
     c = plane.coordinates()
     vander = np.vander(c, l + 1, increasing=True)  # [i, a] = c_i^a

@@ -42,14 +42,14 @@ _NAMED: Final[dict[int, dict[int, str]]] = {
 }
 
 
-def _check(l: int, m: int) -> None:  # noqa: E741
+def _check(l: int, m: int) -> None:
     if not 0 <= l <= MAX_L:
         raise QuantumNumberError(f"l must be between 0 and {MAX_L}, got {l}")
     if abs(m) > l:
         raise QuantumNumberError(f"|m| must be at most l = {l}, got m = {m}")
 
 
-def real_label(l: int, m: int) -> str:  # noqa: E741
+def real_label(l: int, m: int) -> str:
     """Standard label of the real harmonic (l, m): ``px``, ``dz2``, ``fxyz``; ``g+2`` beyond f.
 
     Notes
@@ -62,13 +62,13 @@ def real_label(l: int, m: int) -> str:  # noqa: E741
     return f"{L_LETTERS[l]}{m:+d}" if m else f"{L_LETTERS[l]}0"
 
 
-def real_labels(l: int) -> list[tuple[str, int]]:  # noqa: E741
+def real_labels(l: int) -> list[tuple[str, int]]:
     """All (label, m) of a subshell, in the conventional order (m = 0, +1, -1, +2, -2, ...)."""
     order = [0] + [s * k for k in range(1, l + 1) for s in (1, -1)]
     return [(real_label(l, m), m) for m in order]
 
 
-def real_m_from_label(l: int, label: str) -> int:  # noqa: E741
+def real_m_from_label(l: int, label: str) -> int:
     """The m of a real-harmonic label (``'dxy'`` → -2); raises for an unknown label."""
     for name, m in real_labels(l):
         if name == label or name == f"{label}":
@@ -77,7 +77,7 @@ def real_m_from_label(l: int, label: str) -> int:  # noqa: E741
     raise QuantumNumberError(f"{label}: not a real orbital of l = {l} (use {names})")
 
 
-def complex_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -> npt.NDArray[np.complex128]:  # noqa: E741
+def complex_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -> npt.NDArray[np.complex128]:
     """Complex spherical harmonic Y_l^m(θ, φ) with the Condon–Shortley phase.
 
     Parameters
@@ -120,7 +120,7 @@ def _pi_polys(m: int, l_max: int) -> list[Monomials]:
     polys: list[Monomials] = [{(0, 0, 0): start}]
     if l_max > m:
         polys.append({(0, 0, 1): (2 * m + 1) * start})
-    for l in range(m + 2, l_max + 1):  # noqa: E741
+    for l in range(m + 2, l_max + 1):
         new: Monomials = {}
         for (a, b, c), v in polys[-1].items():
             key = (a, b, c + 1)
@@ -151,7 +151,7 @@ def _xy_power(m: int) -> tuple[Monomials, Monomials]:
 
 
 @cache
-def solid_harmonic_monomials(l: int, m: int) -> tuple[tuple[tuple[int, int, int], float], ...]:  # noqa: E741
+def solid_harmonic_monomials(l: int, m: int) -> tuple[tuple[tuple[int, int, int], float], ...]:
     """Coefficients of the real solid harmonic r^l Y_lm as a polynomial in x, y, z.
 
     Parameters
@@ -191,7 +191,7 @@ def solid_harmonic_monomials(l: int, m: int) -> tuple[tuple[tuple[int, int, int]
     return tuple(sorted((k, v) for k, v in out.items() if v != 0.0))
 
 
-def solid_harmonic(l: int, m: int, x: npt.ArrayLike, y: npt.ArrayLike, z: npt.ArrayLike) -> FloatArray:  # noqa: E741
+def solid_harmonic(l: int, m: int, x: npt.ArrayLike, y: npt.ArrayLike, z: npt.ArrayLike) -> FloatArray:
     """Evaluate the real solid harmonic r^l Y_lm(x, y, z) on arrays (any units of length)."""
     xx, yy, zz = (np.asarray(v, dtype=float) for v in (x, y, z))
     out = np.zeros(np.broadcast(xx, yy, zz).shape)
@@ -200,7 +200,7 @@ def solid_harmonic(l: int, m: int, x: npt.ArrayLike, y: npt.ArrayLike, z: npt.Ar
     return out
 
 
-def real_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -> FloatArray:  # noqa: E741
+def real_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -> FloatArray:
     """Real spherical harmonic Y_lm(θ, φ), with the sign convention of :func:`solid_harmonic_monomials`.
 
     Examples

@@ -72,7 +72,7 @@ class HydrogenicRadial(RadialFunction):
 
     kind = "hydrogenic"
 
-    def __init__(self, n: int, l: int, Z: float) -> None:  # noqa: E741
+    def __init__(self, n: int, l: int, Z: float) -> None:
         if not 1 <= n <= MAX_N:
             raise QuantumNumberError(f"n must be between 1 and {MAX_N}, got {n}")
         if not 0 <= l < n:

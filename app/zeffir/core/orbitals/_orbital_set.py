@@ -55,7 +55,7 @@ class SubshellOrbital:
         return self.subshell.n
 
     @property
-    def l(self) -> int:  # noqa: E743 - the trade's own symbol
+    def l(self) -> int:
         """Orbital angular momentum quantum number."""
         return self.subshell.l
 

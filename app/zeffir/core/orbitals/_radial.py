@@ -29,7 +29,7 @@ class RadialFunction(ABC):
     """
 
     n: int
-    l: int  # noqa: E741 - the trade's own symbol
+    l: int
     kind: str = "radial"
 
     @abstractmethod

@@ -44,7 +44,7 @@ class SlaterRadial(RadialFunction):
 
     kind = "slater-type"
 
-    def __init__(self, n: int, l: int, n_star: float, zeta: float) -> None:  # noqa: E741
+    def __init__(self, n: int, l: int, n_star: float, zeta: float) -> None:
         if not n_star >= 1.0 or not np.isfinite(n_star):
             raise QuantumNumberError(f"n* must be at least 1, got {n_star}")
         if not zeta > 0 or not np.isfinite(zeta):

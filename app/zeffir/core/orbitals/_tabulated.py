@@ -56,7 +56,7 @@ class TabulatedRadial(RadialFunction):
     kind = "tabulated"
 
     def __init__(
-        self, n: int, l: int, r: npt.ArrayLike, values: npt.ArrayLike, normalise: bool = True  # noqa: E741
+        self, n: int, l: int, r: npt.ArrayLike, values: npt.ArrayLike, normalise: bool = True
     ) -> None:
         grid = np.asarray(r, dtype=float)
         vals = np.asarray(values, dtype=float)

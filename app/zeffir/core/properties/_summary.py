@@ -23,7 +23,7 @@ class SubshellSummary:
 
     label: str
     n: int
-    l: int  # noqa: E741 - the trade's own symbol
+    l: int
     occupancy: int
     zeta: float
     z_eff: float
