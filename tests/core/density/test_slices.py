@@ -73,3 +73,20 @@ def test_radial_sum_rules(spec):
     assert np.trapezoid(total_distribution(orbitals, r), r) == pytest.approx(n, rel=1e-6)
     assert np.trapezoid(4 * np.pi * r**2 * spherical_density(orbitals, r), r) == pytest.approx(n, rel=1e-6)
     assert cumulative_charge(orbitals, np.array([1e3]))[0] == pytest.approx(n, rel=1e-10)
+
+
+@pytest.mark.parametrize("resolution", [128, 129])
+def test_compiled_kernel_equals_numpy_path_and_direct(resolution):
+    from zeffir.core.density import orbital_on_plane_numpy
+    from zeffir.core.density._kernels import kernels_available
+
+    assert kernels_available()  # numba is a declared dependency
+    plane = Plane((0.2, -1.0, 0.4), offset=0.5, extent=7.0, resolution=resolution)
+    for orbital in build("Gd", "slater").orbitals:
+        for _, m in real_labels(orbital.l):
+            compiled = orbital_on_plane(orbital, plane, m)
+            direct = orbital_on_plane_direct(orbital, plane, m)
+            scale = max(np.abs(direct).max(), 1e-300)
+            np.testing.assert_allclose(compiled, orbital_on_plane_numpy(orbital, plane, m),
+                                       rtol=0, atol=1e-12 * scale)
+            np.testing.assert_allclose(compiled, direct, rtol=0, atol=1e-12 * scale)

@@ -14,6 +14,7 @@ from zeffir.core.density._slices import (
     orbital_density_on_plane,
     orbital_on_plane,
     orbital_on_plane_direct,
+    orbital_on_plane_numpy,
     plane_polynomial,
 )
 
@@ -27,6 +28,7 @@ __all__ = [
     "orbital_density_on_plane",
     "orbital_on_plane",
     "orbital_on_plane_direct",
+    "orbital_on_plane_numpy",
     "plane_polynomial",
     "radial_grid",
     "spherical_density",

@@ -5,7 +5,7 @@ from __future__ import annotations
 import numpy as np
 import numpy.typing as npt
 
-from zeffir.core.orbitals import FloatArray, OrbitalSet
+from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction
 
 __all__ = [
     "cumulative_charge",
@@ -89,8 +89,16 @@ def spherical_density(orbitals: OrbitalSet, r: npt.ArrayLike) -> FloatArray:
     A. Unsöld, Ann. Phys. 387, 355 (1927).
     """
     rr = np.asarray(r, dtype=float)
-    out = np.zeros_like(rr)
+    # Subshells with the same radial function (2s and 2p under Slater's rules) are
+    # evaluated once, with their electrons added together.
+    electrons: dict[object, float] = {}
+    radial_of: dict[object, RadialFunction] = {}
     for o in orbitals.orbitals:
-        out += o.occupancy * o.radial(rr) ** 2
+        key = o.radial.shape_key()
+        electrons[key] = electrons.get(key, 0.0) + o.occupancy
+        radial_of[key] = o.radial
+    out = np.zeros_like(rr)
+    for key, count in electrons.items():
+        out += count * radial_of[key](rr) ** 2
     out *= 1.0 / (4.0 * np.pi)
     return out

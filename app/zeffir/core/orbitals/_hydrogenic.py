@@ -88,6 +88,9 @@ class HydrogenicRadial(RadialFunction):
     def __repr__(self) -> str:
         return f"HydrogenicRadial(n={self.n}, l={self.l}, Z={self.Z:g})"
 
+    def shape_key(self) -> object:
+        return ("hydrogenic", self.n, self.l, self.Z)
+
     def _evaluate(self, r: npt.ArrayLike, power: int) -> FloatArray:
         """N ρ^power e^{-ρ/2} L(ρ) scaled so power = l gives R and power = 0 gives R/r^l·scale^-l."""
         rho = self._scale * np.asarray(r, dtype=float)

@@ -40,6 +40,10 @@ class RadialFunction(ABC):
     def extent(self, tail: float = 1e-14) -> float:
         """Radius (bohr) beyond which the fraction of the electron left is below ``tail``."""
 
+    def shape_key(self) -> object:
+        """A key equal for two radial functions with identical values (default: identity)."""
+        return id(self)
+
     def over_r_l(self, r: npt.ArrayLike) -> FloatArray:
         """R(r) / r^l, the smooth factor that multiplies a solid harmonic r^l Y_lm.
 

@@ -58,6 +58,10 @@ class SlaterRadial(RadialFunction):
     def __repr__(self) -> str:
         return f"SlaterRadial(n={self.n}, l={self.l}, n_star={self.n_star:g}, zeta={self.zeta:g})"
 
+    def shape_key(self) -> object:
+        # R depends on n* and ζ only; l merely labels the angular part.
+        return ("slater-type", self.n_star, self.zeta)
+
     def _power_exp(self, r: npt.ArrayLike, power: float) -> FloatArray:
         rr = np.asarray(r, dtype=float)
         exponent = self._log_norm - self.zeta * rr

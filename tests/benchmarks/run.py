@@ -1,0 +1,80 @@
+"""Zeffir benchmarks: ``python tests/benchmarks/run.py``.
+
+Each case prints one line ``case_name: value unit (goal <= X)`` (or ``>=``). Timings
+are ratios against a baseline measured in the same run — one ``np.exp`` over a
+512×512 array of random numbers — so the figures compare across machines. This
+is not part of the test suite: nothing here fails a build.
+"""
+
+from __future__ import annotations
+
+import statistics
+import sys
+import time
+from collections.abc import Callable
+
+import numpy as np
+
+REPEATS = 41
+SIZE = 512
+
+
+def median_seconds(work: Callable[[], object], repeats: int = REPEATS) -> float:
+    """Median wall time of ``work`` after warm-up calls (compilation, allocator settling)."""
+    for _ in range(3):
+        work()
+    times = []
+    for _ in range(repeats):
+        start = time.perf_counter()
+        work()
+        times.append(time.perf_counter() - start)
+    return statistics.median(times)
+
+
+def report(name: str, value: float, unit: str, goal: str) -> None:
+    print(f"{name}: {value:.3g} {unit} (goal {goal})", flush=True)
+
+
+def main() -> int:
+    import sympy
+    from sympy.physics.hydrogen import R_nl
+
+    from zeffir.core import Plane, build, density_on_plane, orbital_on_plane
+
+    rng = np.random.default_rng(0)
+    noise = rng.random((SIZE, SIZE))
+    baseline = median_seconds(lambda: np.exp(noise))
+    print(f"baseline: np.exp over {SIZE}x{SIZE} random numbers = {baseline * 1e3:.3f} ms")
+
+    # (i) a real 4f orbital (fz3, hydrogen-like, Z = 1) on a 512² slice through the nucleus.
+    f_orbital = build("H 4f1", "hydrogenic").orbital("4f")
+    plane = Plane.named("xz", extent=30.0, resolution=SIZE)
+    ours = median_seconds(lambda: orbital_on_plane(f_orbital, plane, 0))
+    report("slice_4f_512", ours / baseline, "x np.exp", "<= 1.0")
+
+    # (ii) the total density of Xe (default model) on the same kind of slice.
+    xenon = build("Xe")
+    xe_plane = Plane.named("xz", extent=8.0, resolution=SIZE)
+    xe = median_seconds(lambda: density_on_plane(xenon, xe_plane))
+    report("slice_density_xe_512", xe / baseline, "x np.exp", "<= 1.0")
+
+    # (iii) the same 4f orbital from sympy's closed form, lambdified to numpy.
+    x, y, z = sympy.symbols("x y z", real=True)
+    r = sympy.sqrt(x**2 + y**2 + z**2)
+    # Real fz3 = √(7/16π) (5z² - 3r²) z / r³ times R_43(r) (Condon–Shortley, m = 0).
+    angular = sympy.sqrt(sympy.Rational(7, 16) / sympy.pi) * (5 * z**2 - 3 * r**2) * z / r**3
+    expression = R_nl(4, 3, r, 1) * angular
+    closed_form = sympy.lambdify((x, y, z), expression, "numpy")
+    px, py, pz = plane.points()
+    with np.errstate(invalid="ignore", divide="ignore"):
+        reference = closed_form(px, py, pz)
+        sympy_time = median_seconds(lambda: closed_form(px, py, pz), repeats=11)
+    ours_values = orbital_on_plane(f_orbital, plane, 0)
+    error = np.nanmax(np.abs(reference - ours_values)) / np.abs(ours_values).max()
+    report("slice_4f_vs_sympy_speedup", sympy_time / ours, "x faster", ">= 10")
+    print(f"  (largest difference from sympy's values: {error:.1e} of the maximum)")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
