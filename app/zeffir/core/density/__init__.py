@@ -11,6 +11,7 @@ from zeffir.core.density._radial_curves import (
 from zeffir.core.density._slices import (
     density_on_plane,
     density_on_plane_direct,
+    density_on_plane_numpy,
     orbital_density_on_plane,
     orbital_on_plane,
     orbital_on_plane_direct,
@@ -25,6 +26,7 @@ __all__ = [
     "cumulative_charge",
     "density_on_plane",
     "density_on_plane_direct",
+    "density_on_plane_numpy",
     "orbital_density_on_plane",
     "orbital_on_plane",
     "orbital_on_plane_direct",

@@ -2,7 +2,8 @@
 
 Two evaluators give the same numbers: a direct one (every point's r and solid
 harmonic) kept as the reference, and the fast one used everywhere else. The fast
-one uses the structure of the problem: the radial factor depends only on
+one uses the structure of the problem (and, from 128² up, the compiled kernels
+of ``_kernels.py`` with radial profiles tabulated once, ``_radial_table.py``): the radial factor depends only on
 r² = offset² + u² + v², so on the symmetric grid it is computed on one quadrant
 and mirrored; the solid harmonic r^l Y_lm is a polynomial in (u, v) of degree l,
 so on the grid it is a rank-(l+1) product of two small Vandermonde matrices.
@@ -10,18 +11,21 @@ so on the grid it is a rank-(l+1) product of two small Vandermonde matrices.
 
 from __future__ import annotations
 
+from functools import lru_cache
 from typing import Literal
 
 import numpy as np
 import numpy.typing as npt
 
 from zeffir.core._errors import QuantumNumberError
-from zeffir.core.density._kernels import fused_product
+from zeffir.core.density._kernels import compiled_density, compiled_orbital
 from zeffir.core.density._plane import Plane
 from zeffir.core.density._radial_curves import spherical_density
+from zeffir.core.density._radial_table import RadialTable, tabulate
 from zeffir.core.orbitals import (
     FloatArray,
     OrbitalSet,
+    SlaterRadial,
     SubshellOrbital,
     solid_harmonic,
     solid_harmonic_monomials,
@@ -30,6 +34,7 @@ from zeffir.core.orbitals import (
 __all__ = [
     "density_on_plane",
     "density_on_plane_direct",
+    "density_on_plane_numpy",
     "orbital_density_on_plane",
     "orbital_on_plane",
     "orbital_on_plane_direct",
@@ -48,11 +53,13 @@ def _check_m(orbital: SubshellOrbital, m: int) -> None:
         raise QuantumNumberError(f"m = {m}: |m| must be at most l = {orbital.l} for {orbital.label}")
 
 
+@lru_cache(maxsize=512)
 def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:
     """Coefficients C[a, b] of r^l Y_lm restricted to the plane: Σ C[a,b] u^a v^b.
 
     Substitutes x = offset·n_x + u e1_x + v e2_x (and likewise y, z) into the
-    Cartesian monomials of :func:`solid_harmonic_monomials`.
+    Cartesian monomials of :func:`solid_harmonic_monomials`. Cached per plane;
+    the returned array is read-only.
     """
     n, e1, e2 = plane.basis()
     linear = [np.array([[plane.offset * n[k], e2[k]], [e1[k], 0.0]]) for k in range(3)]
@@ -66,6 +73,7 @@ def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:
     for (a, b, c), coeff in solid_harmonic_monomials(l, m):
         term = _polymul2(_polymul2(powers[0][a], powers[1][b]), powers[2][c])
         out[: term.shape[0], : term.shape[1]] += coeff * term
+    out.flags.writeable = False
     return out
 
 
@@ -158,12 +166,37 @@ def orbital_on_plane(
         return phase * (re + sign * 1j * im) / np.sqrt(2.0)
     if kind != "real":
         raise QuantumNumberError(f"{kind}: kind must be 'real' or 'complex'")
-    radial = orbital.radial.over_r_l(_quadrant_radii(plane))
     if plane.resolution >= _COMPILED_FROM:
-        fused = fused_product(plane.coordinates(), plane_polynomial(orbital.l, m, plane), radial)
-        if fused is not None:
-            return fused
+        table = _orbital_table(orbital)
+        if table is not None:
+            fused = compiled_orbital(plane.coordinates(), plane.offset,
+                                     plane_polynomial(orbital.l, m, plane), table)
+            if fused is not None:
+                return fused
     return orbital_on_plane_numpy(orbital, plane, m)
+
+
+def _orbital_table(orbital: SubshellOrbital) -> RadialTable | None:
+    """The cached table of R(r)/r^l, or None where that factor is singular at the nucleus."""
+    radial = orbital.radial
+    cached = radial.__dict__.get("_slice_table")
+    if cached is None:
+        at_nucleus = radial.over_r_l(np.zeros(1))[0]
+        singular = isinstance(radial, SlaterRadial) and radial.n_star - 1 - radial.l < 0
+        cached = False if singular or not np.isfinite(at_nucleus) else tabulate(
+            radial.over_r_l, radial.extent(1e-16)
+        )
+        radial.__dict__["_slice_table"] = cached
+    return cached or None
+
+
+def _density_table(orbitals: OrbitalSet) -> RadialTable:
+    table = orbitals.memo.get("density_table")
+    if not isinstance(table, RadialTable):
+        top = max(o.radial.extent(1e-16) for o in orbitals.orbitals)
+        table = tabulate(lambda r: spherical_density(orbitals, r), top)
+        orbitals.memo["density_table"] = table
+    return table
 
 
 def orbital_on_plane_numpy(orbital: SubshellOrbital, plane: Plane, m: int = 0) -> FloatArray:
@@ -201,6 +234,15 @@ def density_on_plane(orbitals: OrbitalSet, plane: Plane) -> FloatArray:
     spherically averaged here, as in an average-of-configuration description.
     The radial profile is evaluated on one quadrant of the grid and mirrored.
     """
+    if plane.resolution >= _COMPILED_FROM:
+        compiled = compiled_density(plane.coordinates(), plane.offset, _density_table(orbitals))
+        if compiled is not None:
+            return compiled
+    return density_on_plane_numpy(orbitals, plane)
+
+
+def density_on_plane_numpy(orbitals: OrbitalSet, plane: Plane) -> FloatArray:
+    """The plain-numpy path of :func:`density_on_plane` (exact radial values, no table)."""
     # The quadrant is symmetric under u <-> v: evaluate its upper triangle only.
     c = plane.coordinates()
     sq = c[plane.resolution // 2 :] ** 2

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 from zeffir.core._errors import QuantumNumberError
 from zeffir.core.config import Configuration, Subshell
@@ -76,6 +76,9 @@ class OrbitalSet:
         Total energy (hartree) where the model defines one.
     notes : tuple of str
         Remarks that apply to the whole set.
+    memo : dict
+        Derived data cached by evaluators (e.g. a tabulated density profile); the
+        set itself never changes, so cached values stay valid.
     """
 
     configuration: Configuration
@@ -83,6 +86,7 @@ class OrbitalSet:
     orbitals: tuple[SubshellOrbital, ...]
     total_energy: float | None = None
     notes: tuple[str, ...] = ()
+    memo: dict[str, object] = field(default_factory=dict, compare=False, repr=False)
 
     def orbital(self, label: str | Subshell) -> SubshellOrbital:
         """The orbital of a subshell given by label (``'2p'``) or :class:`Subshell`."""
