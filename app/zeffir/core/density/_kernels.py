@@ -1,8 +1,10 @@
 """Compiled slice kernels (numba), used when numba is importable.
 
-Two multi-threaded kernels do the work of a slice through any plane:
+Multi-threaded kernels do the work of a slice through any plane:
 ``fill_quadrant`` interpolates a tabulated radial profile at every point of the
-non-negative quadrant of the (exactly symmetric) grid; ``polynomial_times_mirrored`` evaluates the solid harmonic r^l Y_lm — a
+non-negative quadrant of the (exactly symmetric) grid, computing the upper
+triangle only (the quadrant is symmetric under u <-> v);
+``polynomial_times_mirrored`` evaluates the solid harmonic r^l Y_lm — a
 polynomial in (u, v) — row by row with Horner's rule and multiplies it by the
 radial quadrant read forwards and backwards. ``mirror`` fills a full grid from a
 quadrant. numba is imported on first use, so importing the core stays fast, and

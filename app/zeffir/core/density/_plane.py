@@ -104,4 +104,5 @@ class Plane:
         c = self.coordinates()
         u = c[None, :]
         v = c[:, None]
-        return tuple(self.offset * n[k] + u * e1[k] + v * e2[k] for k in range(3))  # type: ignore[return-value]
+        x, y, z = (self.offset * n[k] + u * e1[k] + v * e2[k] for k in range(3))
+        return x, y, z

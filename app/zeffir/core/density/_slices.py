@@ -3,7 +3,8 @@
 Two evaluators give the same numbers: a direct one (every point's r and solid
 harmonic) kept as the reference, and the fast one used everywhere else. The fast
 one uses the structure of the problem (and, from 128² up, the compiled kernels
-of ``_kernels.py`` with radial profiles tabulated once, ``_radial_table.py``): the radial factor depends only on
+of ``_kernels.py`` with radial profiles tabulated once, ``_radial_table.py``):
+the radial factor depends only on
 r² = offset² + u² + v², so on the symmetric grid it is computed on one quadrant
 and mirrored; the solid harmonic r^l Y_lm is a polynomial in (u, v) of degree l,
 so on the grid it is a rank-(l+1) product of two small Vandermonde matrices.
@@ -163,7 +164,7 @@ def orbital_on_plane(
         im = orbital_on_plane(orbital, plane, -abs(m), "real")
         phase = (-1) ** abs(m) if m > 0 else 1
         sign = 1 if m > 0 else -1
-        return phase * (re + sign * 1j * im) / np.sqrt(2.0)
+        return np.asarray(phase * (re + sign * 1j * im) / np.sqrt(2.0), dtype=complex)
     if kind != "real":
         raise QuantumNumberError(f"{kind}: kind must be 'real' or 'complex'")
     if plane.resolution >= _COMPILED_FROM:
@@ -179,15 +180,15 @@ def orbital_on_plane(
 def _orbital_table(orbital: SubshellOrbital) -> RadialTable | None:
     """The cached table of R(r)/r^l, or None where that factor is singular at the nucleus."""
     radial = orbital.radial
-    cached = radial.__dict__.get("_slice_table")
-    if cached is None:
+    memo = radial.__dict__
+    if "_slice_table" not in memo:
         at_nucleus = radial.over_r_l(np.zeros(1))[0]
         singular = isinstance(radial, SlaterRadial) and radial.n_star - 1 - radial.l < 0
-        cached = False if singular or not np.isfinite(at_nucleus) else tabulate(
+        memo["_slice_table"] = None if singular or not np.isfinite(at_nucleus) else tabulate(
             radial.over_r_l, radial.extent(1e-16)
         )
-        radial.__dict__["_slice_table"] = cached
-    return cached or None
+    table = memo["_slice_table"]
+    return table if isinstance(table, RadialTable) else None
 
 
 def _density_table(orbitals: OrbitalSet) -> RadialTable:

@@ -27,9 +27,14 @@ class Model(Protocol):
         The published source of the method.
     """
 
-    name: str
-    title: str
-    reference: str
+    @property
+    def name(self) -> str: ...
+
+    @property
+    def title(self) -> str: ...
+
+    @property
+    def reference(self) -> str: ...
 
     def build(self, configuration: Configuration) -> OrbitalSet:
         """Return the orbitals of ``configuration`` under this model."""

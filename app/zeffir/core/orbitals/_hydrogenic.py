@@ -100,7 +100,7 @@ class HydrogenicRadial(RadialFunction):
             log_rho = np.log(rho, where=rho > 0, out=np.full_like(rho, -np.inf))
             exponent = exponent + power * log_rho
         with np.errstate(under="ignore"):
-            return np.exp(exponent) * poly
+            return np.asarray(np.exp(exponent) * poly, dtype=float)
 
     def __call__(self, r: npt.ArrayLike) -> FloatArray:
         return self._evaluate(r, self.l)

@@ -125,4 +125,4 @@ class RadialFunction(ABC):
         t = np.linspace(0.0, np.sqrt(top), 16001)
         grid = t * t
         q = integrate.cumulative_simpson(self.distribution(grid) * 2 * t, x=t, initial=0.0)
-        return np.interp(rr, grid, q)
+        return np.asarray(np.interp(rr, grid, q), dtype=float)

@@ -67,7 +67,7 @@ class SlaterRadial(RadialFunction):
         exponent = self._log_norm - self.zeta * rr
         if not power:
             with np.errstate(under="ignore"):
-                return np.exp(exponent)
+                return np.asarray(np.exp(exponent), dtype=float)
         log_r = np.log(rr, where=rr > 0, out=np.zeros_like(rr))
         with np.errstate(under="ignore"):
             out = np.exp(exponent + power * log_r)

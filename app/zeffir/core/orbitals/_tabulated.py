@@ -96,7 +96,7 @@ class TabulatedRadial(RadialFunction):
 
     def __call__(self, r: npt.ArrayLike) -> FloatArray:
         rr = np.asarray(r, dtype=float)
-        return self.over_r_l(rr) * rr**self.l
+        return np.asarray(self.over_r_l(rr) * rr**self.l, dtype=float)
 
     def extent(self, tail: float = 1e-14) -> float:
         d = self._values**2 * self._r**3
