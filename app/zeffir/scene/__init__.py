@@ -1,0 +1,48 @@
+"""What the views show, computed from the view state by the core (no Qt, no plotting).
+
+The window draws these scenes and the exporters write them, so an exported figure
+or data file holds exactly what is on screen.
+"""
+
+from zeffir.scene._build import orbitals_for
+from zeffir.scene._colours import DIVERGING, SEQUENTIAL, colour_stops
+from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
+from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length_symbol, unit_text
+from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
+from zeffir.scene._slice import (
+    LOG_DECADES,
+    SliceScene,
+    colour_scale,
+    contour_levels,
+    orbital_name,
+    plane_of,
+    slice_scene,
+)
+
+__all__ = [
+    "DIVERGING",
+    "LOG_DECADES",
+    "QUANTITIES",
+    "SEQUENTIAL",
+    "Curve",
+    "Marker",
+    "Quantity",
+    "RadialComparison",
+    "RadialScene",
+    "SliceComparison",
+    "SliceScene",
+    "colour_scale",
+    "colour_stops",
+    "compare_radial",
+    "compare_slices",
+    "contour_levels",
+    "length_factor",
+    "length_symbol",
+    "orbital_name",
+    "orbitals_for",
+    "plane_of",
+    "radial_range",
+    "radial_scene",
+    "slice_scene",
+    "unit_text",
+]
