@@ -1,0 +1,38 @@
+"""Start the window: ``zeffir`` with no arguments, or ``python -m zeffir``."""
+
+from __future__ import annotations
+
+import sys
+from collections.abc import Sequence
+
+__all__ = ["demo_state", "run_window"]
+
+
+def demo_state() -> object:
+    """The built-in demo session (resources/demo/sodium-valence.zeffir)."""
+    from zeffir.core._resources import resource_path
+    from zeffir.export import load_session
+
+    with __import__("importlib").resources.as_file(
+        resource_path("demo", "sodium-valence.zeffir")
+    ) as path:
+        return load_session(path)
+
+
+def run_window(argv: Sequence[str] | None = None, session: str | None = None) -> int:
+    """Create the application, open ``session`` (or the demo) and run the event loop."""
+    import pyqtgraph as pg
+    from PySide6.QtWidgets import QApplication
+
+    from zeffir.ui._main_window import MainWindow
+
+    pg.setConfigOptions(imageAxisOrder="row-major", antialias=True)
+    app = QApplication.instance() or QApplication(list(argv or sys.argv[:1]))
+    app.setApplicationName("Zeffir")
+    app.setOrganizationName("Zeffir")
+    window = MainWindow(demo_state())  # type: ignore[arg-type]
+    if session:
+        window.open_session(session)
+    window.resize(1600, 1000)
+    window.show()
+    return int(app.exec())

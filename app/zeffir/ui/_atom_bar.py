@@ -1,0 +1,179 @@
+"""The strip at the top of the window: atom field, model chooser and orbital chooser."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Qt, QTimer, Signal
+from PySide6.QtWidgets import QComboBox, QHBoxLayout, QLabel, QLineEdit, QWidget
+
+from zeffir.core import ZeffirError, get_model, model_names, parse_spec
+from zeffir.core.orbitals import real_labels
+from zeffir.state import OrbitalChoice, Source
+
+__all__ = ["AtomBar", "SourceFields"]
+
+SPEC_TIP = (
+    "Atom or ion, optionally with a configuration in trade notation:\n"
+    "Fe · 26 · Fe3+ · O2- · C 1s2 2s1 2p3 · Na [Ne] 4d1 · He+ 2p1\n"
+    "An explicit configuration replaces the ground one; occupancy 1 may be omitted."
+)
+
+
+class SourceFields(QWidget):
+    """An atom field validated as the user types, and a model chooser.
+
+    Signals
+    -------
+    source_edited(Source)
+        A valid spec or a new model was entered (typing is debounced by 250 ms;
+        Return commits at once). An invalid spec shows the parser's message beside
+        the field and emits nothing, so the last valid state stays on screen.
+    """
+
+    source_edited = Signal(object)
+
+    def __init__(self, caption: str, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self._source = Source()
+        self.spec_edit = QLineEdit()
+        self.spec_edit.setPlaceholderText("e.g. Fe3+ or C 1s2 2s1 2p3")
+        self.spec_edit.setToolTip(SPEC_TIP)
+        self.spec_edit.setMinimumWidth(220)
+        self.spec_edit.setClearButtonEnabled(True)
+        self.model_box = QComboBox()
+        for name in model_names():
+            self.model_box.addItem(get_model(name).title, name)
+            index = self.model_box.count() - 1
+            self.model_box.setItemData(index, f"{name}: {get_model(name).reference}",
+                                       Qt.ItemDataRole.ToolTipRole)
+        self.model_box.setToolTip("Model that turns the configuration into orbitals")
+        self.message = QLabel()
+        self.message.setObjectName("specMessage")
+        self.message.setStyleSheet("color: #b00020;")
+        self.message.setWordWrap(False)
+        self._debounce = QTimer(self)
+        self._debounce.setSingleShot(True)
+        self._debounce.setInterval(250)
+        self._debounce.timeout.connect(self._commit)
+        layout = QHBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        label = QLabel(caption)
+        label.setBuddy(self.spec_edit)
+        layout.addWidget(label)
+        layout.addWidget(self.spec_edit, 2)
+        layout.addWidget(QLabel("Model"))
+        layout.addWidget(self.model_box)
+        layout.addWidget(self.message, 3)
+        self.spec_edit.textEdited.connect(self._on_text)
+        self.spec_edit.returnPressed.connect(self._commit)
+        self.model_box.activated.connect(lambda _index: self._commit())
+
+    def show_source(self, source: Source) -> None:
+        """Display ``source`` without emitting (model-to-widget update)."""
+        self._source = source
+        for widget in (self.spec_edit, self.model_box):
+            widget.blockSignals(True)
+        if self.spec_edit.text().strip() != source.spec or not self.message.text():
+            if self.spec_edit.text().strip() != source.spec:
+                self.spec_edit.setText(source.spec)
+        index = self.model_box.findData(source.model)
+        if index >= 0:
+            self.model_box.setCurrentIndex(index)
+        for widget in (self.spec_edit, self.model_box):
+            widget.blockSignals(False)
+
+    def error_text(self) -> str:
+        """The parser's message currently shown, or '' when the field is valid."""
+        return self.message.text()
+
+    def _on_text(self, text: str) -> None:
+        if self._validate(text):
+            self._debounce.start()
+        else:
+            self._debounce.stop()
+
+    def _validate(self, text: str) -> bool:
+        try:
+            parse_spec(text)
+        except ZeffirError as error:
+            self.message.setText(str(error))
+            self.message.setToolTip(f"{error}\nThe view keeps showing the last valid atom.")
+            return False
+        self.message.clear()
+        self.message.setToolTip("")
+        return True
+
+    def _commit(self) -> None:
+        self._debounce.stop()
+        text = self.spec_edit.text().strip()
+        if not self._validate(text):
+            return
+        source = Source(text, str(self.model_box.currentData()))
+        if source != self._source:
+            self._source = source
+            self.source_edited.emit(source)
+
+
+class AtomBar(QWidget):
+    """Atom field and model chooser, followed by the orbital chooser.
+
+    Signals
+    -------
+    source_edited(Source)
+        See :class:`SourceFields`.
+    orbital_edited(OrbitalChoice)
+        The user picked another subshell or orbital.
+    """
+
+    source_edited = Signal(object)
+    orbital_edited = Signal(object)
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.source_fields = SourceFields("Atom")
+        self.subshell_box = QComboBox()
+        self.subshell_box.setToolTip("Subshell shown in the slice and highlighted in the radial view")
+        self.orbital_box = QComboBox()
+        self.orbital_box.setToolTip(
+            "Real orbitals (px, dxy, ... : cos/sin combinations) or complex ones with a definite m "
+            "(Condon–Shortley phase)"
+        )
+        self.orbital_box.setMinimumContentsLength(10)
+        layout = QHBoxLayout(self)
+        layout.setContentsMargins(6, 4, 6, 4)
+        layout.addWidget(self.source_fields, 5)
+        layout.addSpacing(12)
+        layout.addWidget(QLabel("Orbital"))
+        layout.addWidget(self.subshell_box)
+        layout.addWidget(self.orbital_box)
+        self.source_fields.source_edited.connect(self.source_edited)
+        self.subshell_box.activated.connect(lambda _i: self._emit_orbital(reset_m=True))
+        self.orbital_box.activated.connect(lambda _i: self._emit_orbital(reset_m=False))
+
+    def show_state(self, source: Source, orbital: OrbitalChoice) -> None:
+        """Display a source and orbital choice without emitting."""
+        self.source_fields.show_source(source)
+        configuration = parse_spec(source.spec)
+        for box in (self.subshell_box, self.orbital_box):
+            box.blockSignals(True)
+        self.subshell_box.clear()
+        for sub, occ in configuration.occupations:
+            self.subshell_box.addItem(f"{sub.label}  ({occ})", sub.label)
+        self.subshell_box.setCurrentIndex(max(self.subshell_box.findData(orbital.subshell), 0))
+        l = "spdfghi".index(orbital.subshell[-1])  # noqa: E741
+        self.orbital_box.clear()
+        for label, m in real_labels(l):
+            self.orbital_box.addItem(f"{orbital.subshell[:-1]}{label}", ("real", m))
+        if l > 0:
+            for m in range(-l, l + 1):
+                self.orbital_box.addItem(f"m = {m:+d}" if m else "m = 0", ("complex", m))
+        index = self.orbital_box.findData((orbital.kind, orbital.m))
+        self.orbital_box.setCurrentIndex(max(index, 0))
+        for box in (self.subshell_box, self.orbital_box):
+            box.blockSignals(False)
+
+    def _emit_orbital(self, reset_m: bool) -> None:
+        subshell = str(self.subshell_box.currentData())
+        kind, m = self.orbital_box.currentData() or ("real", 0)
+        if reset_m:
+            kind, m = "real", 0
+        self.orbital_edited.emit(OrbitalChoice(subshell, kind, int(m)))

@@ -1,0 +1,252 @@
+"""Side-panel controls: radial settings, slice settings, units and the comparison."""
+
+from __future__ import annotations
+
+from dataclasses import replace
+
+from PySide6.QtCore import QTimer, Signal
+from PySide6.QtWidgets import (
+    QCheckBox,
+    QComboBox,
+    QDoubleSpinBox,
+    QFormLayout,
+    QGroupBox,
+    QHBoxLayout,
+    QSpinBox,
+    QVBoxLayout,
+    QWidget,
+)
+
+from zeffir.scene import QUANTITIES
+from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, RadialSettings, SliceSettings, ViewState
+from zeffir.ui._atom_bar import SourceFields
+
+__all__ = ["ViewControls"]
+
+_RADIAL_CHOICES = (("D", "Radial distribution r²R²"), ("R", "Radial function R(r)"),
+                   ("P", "P(r) = rR(r)"), ("Q", "Cumulative charge Q(r)"))
+_SLICE_CHOICES = (("psi", "Orbital ψ (signed)"), ("psi2", "Orbital density |ψ|²"),
+                  ("density", "Total density ρ"))
+
+
+def _combo(choices: tuple[tuple[str, str], ...]) -> QComboBox:
+    box = QComboBox()
+    for key, text in choices:
+        box.addItem(text, key)
+        box.setItemData(box.count() - 1, QUANTITIES[key].formula if key in QUANTITIES else text, 3)
+    return box
+
+
+def _spin(low: float, high: float, step: float, decimals: int, suffix: str) -> QDoubleSpinBox:
+    spin = QDoubleSpinBox()
+    spin.setRange(low, high)
+    spin.setSingleStep(step)
+    spin.setDecimals(decimals)
+    spin.setSuffix(suffix)
+    spin.setKeyboardTracking(False)
+    return spin
+
+
+class ViewControls(QWidget):
+    """Edits the radial, slice, unit and comparison parts of the state.
+
+    Spin-box bursts are coalesced (60 ms) before anything is emitted.
+
+    Signals
+    -------
+    radial_edited(RadialSettings), slice_edited(SliceSettings), units_edited(str),
+    compare_edited(CompareSettings)
+        The edited part, to be written back into the state.
+    """
+
+    radial_edited = Signal(object)
+    slice_edited = Signal(object)
+    units_edited = Signal(str)
+    compare_edited = Signal(object)
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self._state = ViewState()
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(4, 4, 4, 4)
+        layout.addWidget(self._build_units())
+        layout.addWidget(self._build_radial())
+        layout.addWidget(self._build_slice())
+        layout.addWidget(self._build_compare())
+        layout.addStretch(1)
+        self._slice_timer = QTimer(self)
+        self._slice_timer.setSingleShot(True)
+        self._slice_timer.setInterval(60)
+        self._slice_timer.timeout.connect(self._emit_slice)
+
+    # -- construction ---------------------------------------------------------------
+    def _build_units(self) -> QGroupBox:
+        box = QGroupBox("Units")
+        row = QHBoxLayout(box)
+        self.units = QComboBox()
+        self.units.addItem("atomic (bohr, hartree)", "bohr")
+        self.units.addItem("Å and eV", "angstrom")
+        self.units.setToolTip("Display units; all computation is in atomic units")
+        row.addWidget(self.units)
+        self.units.activated.connect(lambda _i: self.units_edited.emit(str(self.units.currentData())))
+        return box
+
+    def _build_radial(self) -> QGroupBox:
+        box = QGroupBox("Radial curves")
+        form = QFormLayout(box)
+        self.radial_quantity = _combo(_RADIAL_CHOICES)
+        self.weighted = QCheckBox("Weight by occupancy")
+        self.weighted.setToolTip("Multiply D(r) and Q(r) by the electrons in each subshell")
+        self.show_subshells = QCheckBox("Each subshell")
+        self.show_total = QCheckBox("Whole atom")
+        self.show_markers = QCheckBox("Mark r_max, ⟨r⟩ and nodes")
+        self.log_r = QCheckBox("Logarithmic r")
+        form.addRow("Show", self.radial_quantity)
+        for widget in (self.weighted, self.show_subshells, self.show_total, self.show_markers,
+                       self.log_r):
+            form.addRow(widget)
+            widget.toggled.connect(self._emit_radial)
+        self.radial_quantity.activated.connect(lambda _i: self._emit_radial())
+        return box
+
+    def _build_slice(self) -> QGroupBox:
+        box = QGroupBox("Slice")
+        form = QFormLayout(box)
+        self.slice_quantity = _combo(_SLICE_CHOICES)
+        self.plane = QComboBox()
+        for key, text in (("xy", "xy (z = offset)"), ("xz", "xz (y = offset)"),
+                          ("yz", "yz (x = offset)"), ("custom", "normal vector…")):
+            self.plane.addItem(text, key)
+        self.normal = [_spin(-1.0, 1.0, 0.1, 3, "") for _ in range(3)]
+        normal_row = QWidget()
+        normal_layout = QHBoxLayout(normal_row)
+        normal_layout.setContentsMargins(0, 0, 0, 0)
+        for spin in self.normal:
+            normal_layout.addWidget(spin)
+        self.offset = _spin(-100.0, 100.0, 0.1, 3, " bohr")
+        self.offset.setToolTip("Signed distance of the plane from the nucleus along its normal")
+        self.extent = _spin(0.05, 200.0, 0.5, 2, " bohr")
+        self.extent.setToolTip("Half-width of the square window")
+        self.resolution = QSpinBox()
+        self.resolution.setRange(16, MAX_VIEW_RESOLUTION)
+        self.resolution.setSingleStep(64)
+        self.resolution.setSuffix(" px")
+        self.resolution.setKeyboardTracking(False)
+        self.resolution.setToolTip(f"Points per side (up to {MAX_VIEW_RESOLUTION})")
+        self.log_scale = QCheckBox("Logarithmic colour scale")
+        self.log_scale.setToolTip("For |ψ|² and ρ: six decades below the maximum")
+        self.contours = QSpinBox()
+        self.contours.setRange(0, 40)
+        self.contours.setToolTip("Number of contour lines (nodal lines of ψ are always drawn)")
+        form.addRow("Show", self.slice_quantity)
+        form.addRow("Plane", self.plane)
+        form.addRow("Normal", normal_row)
+        form.addRow("Offset", self.offset)
+        form.addRow("Half-width", self.extent)
+        form.addRow("Resolution", self.resolution)
+        form.addRow("Contours", self.contours)
+        form.addRow(self.log_scale)
+        self.slice_quantity.activated.connect(lambda _i: self._emit_slice())
+        self.plane.activated.connect(lambda _i: self._emit_slice())
+        self.log_scale.toggled.connect(lambda _b: self._emit_slice())
+        for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours):
+            spin.valueChanged.connect(lambda _v: self._slice_timer.start())
+        return box
+
+    def _build_compare(self) -> QGroupBox:
+        box = QGroupBox("Side by side")
+        layout = QVBoxLayout(box)
+        self.compare_on = QCheckBox("Compare with a second model or atom")
+        self.compare_source = SourceFields("Versus")
+        self.compare_source.spec_edit.setMinimumWidth(120)
+        self.show_difference = QCheckBox("Show the difference (right − left)")
+        layout.addWidget(self.compare_on)
+        layout.addWidget(self.compare_source)
+        layout.addWidget(self.show_difference)
+        self.compare_on.toggled.connect(lambda _b: self._emit_compare())
+        self.show_difference.toggled.connect(lambda _b: self._emit_compare())
+        self.compare_source.source_edited.connect(lambda _s: self._emit_compare())
+        return box
+
+    # -- state → widgets ------------------------------------------------------------
+    def show_state(self, state: ViewState) -> None:
+        """Display ``state`` with every widget's signals blocked (no echo)."""
+        self._state = state
+        widgets: list[QWidget] = [
+            self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
+            self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
+            self.offset, self.extent, self.resolution, self.log_scale, self.contours,
+            self.compare_on, self.show_difference,
+        ]
+        for widget in widgets:
+            widget.blockSignals(True)
+        self.units.setCurrentIndex(self.units.findData(state.length_unit))
+        r = state.radial
+        self.radial_quantity.setCurrentIndex(self.radial_quantity.findData(r.quantity))
+        self.weighted.setChecked(r.weighted)
+        self.weighted.setEnabled(r.quantity in ("D", "Q"))
+        self.show_subshells.setChecked(r.show_subshells)
+        self.show_total.setChecked(r.show_total)
+        self.show_markers.setChecked(r.show_markers)
+        self.log_r.setChecked(r.log_r)
+        s = state.slice
+        self.slice_quantity.setCurrentIndex(self.slice_quantity.findData(s.quantity))
+        self.plane.setCurrentIndex(self.plane.findData(s.plane))
+        for spin, value in zip(self.normal, s.normal, strict=True):
+            spin.setValue(value)
+            spin.setEnabled(s.plane == "custom")
+        self.offset.setValue(s.offset)
+        self.extent.setValue(s.extent)
+        self.resolution.setValue(s.resolution)
+        self.contours.setValue(s.contours)
+        self.log_scale.setChecked(s.log_scale)
+        self.log_scale.setEnabled(s.quantity != "psi")
+        c = state.compare
+        self.compare_on.setChecked(c.enabled)
+        self.show_difference.setChecked(c.show_difference)
+        self.compare_source.show_source(c.right)
+        self.compare_source.setEnabled(c.enabled)
+        self.show_difference.setEnabled(c.enabled)
+        for widget in widgets:
+            widget.blockSignals(False)
+
+    # -- widgets → state ------------------------------------------------------------
+    def _emit_radial(self) -> None:
+        self.radial_edited.emit(replace(
+            self._state.radial,
+            quantity=str(self.radial_quantity.currentData()),
+            weighted=self.weighted.isChecked(),
+            show_subshells=self.show_subshells.isChecked(),
+            show_total=self.show_total.isChecked(),
+            show_markers=self.show_markers.isChecked(),
+            log_r=self.log_r.isChecked(),
+        ))
+
+    def _emit_slice(self) -> None:
+        self._slice_timer.stop()
+        normal = tuple(spin.value() for spin in self.normal)
+        if not any(abs(c) > 0 for c in normal):
+            normal = self._state.slice.normal
+        self.slice_edited.emit(replace(
+            self._state.slice,
+            quantity=str(self.slice_quantity.currentData()),
+            plane=str(self.plane.currentData()),
+            normal=normal,
+            offset=self.offset.value(),
+            extent=self.extent.value(),
+            resolution=self.resolution.value(),
+            contours=self.contours.value(),
+            log_scale=self.log_scale.isChecked(),
+        ))
+
+    def _emit_compare(self) -> None:
+        right = self._state.compare.right
+        text = self.compare_source.spec_edit.text().strip()
+        if not self.compare_source.error_text() and text:
+            right = replace(right, spec=text,
+                            model=str(self.compare_source.model_box.currentData()))
+        self.compare_edited.emit(CompareSettings(
+            enabled=self.compare_on.isChecked(),
+            right=right,
+            show_difference=self.show_difference.isChecked(),
+        ))

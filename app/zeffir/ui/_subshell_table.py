@@ -1,0 +1,118 @@
+"""The subshell table: one row per occupied subshell with its numbers."""
+
+from __future__ import annotations
+
+import math
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
+from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem, QWidget
+
+from zeffir.core import ANGSTROM_PER_BOHR, EV_PER_HARTREE, SubshellSummary
+
+__all__ = ["COLUMNS", "SubshellTable"]
+
+#: (header, tooltip) of each column; lengths and energies follow the chosen units.
+COLUMNS: tuple[tuple[str, str], ...] = (
+    ("Subshell", "n and l of the subshell"),
+    ("Electrons", "Occupancy of the subshell"),
+    ("ζ", "Orbital exponent ζ (length⁻¹): Z/n for hydrogenic, Z_eff/n* for Slater-type functions"),
+    ("Z_eff", "Effective nuclear charge felt by an electron of this subshell"),
+    ("n*", "Effective principal quantum number (Slater-type functions)"),
+    ("⟨r⟩", "Mean radius ⟨r⟩ = ∫ r · r²R² dr"),
+    ("r_max", "Radius of the highest maximum of the radial distribution r²R²"),
+    ("ε", "Orbital energy, where the model defines one"),
+)
+
+
+class SubshellTable(QTableWidget):
+    """Shows a subshell table; selecting a row selects that subshell.
+
+    Signals
+    -------
+    subshell_selected(str)
+        The label of the row the user selected.
+    """
+
+    subshell_selected = Signal(str)
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(0, len(COLUMNS), parent)
+        for column, (header, tip) in enumerate(COLUMNS):
+            item = QTableWidgetItem(header)
+            item.setToolTip(tip)
+            self.setHorizontalHeaderItem(column, item)
+        self.verticalHeader().setVisible(False)
+        self.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        self.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        self.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
+        self.setAlternatingRowColors(True)
+        self.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.ResizeToContents)
+        self.horizontalHeader().setStretchLastSection(True)
+        copy = QAction("Copy table", self)
+        copy.setShortcut(QKeySequence.StandardKey.Copy)
+        copy.triggered.connect(self.copy_to_clipboard)
+        self.addAction(copy)
+        self.setContextMenuPolicy(Qt.ContextMenuPolicy.ActionsContextMenu)
+        self._rows: list[SubshellSummary] = []
+        self._units = ("bohr", "Eh")
+        self.itemSelectionChanged.connect(self._on_selection)
+
+    def show_rows(self, rows: list[SubshellSummary], selected: str, length_unit: str) -> None:
+        """Fill the table (atomic units converted for display) and select ``selected``."""
+        self._rows = rows
+        angstrom = length_unit == "angstrom"
+        length = ANGSTROM_PER_BOHR if angstrom else 1.0
+        energy = EV_PER_HARTREE if angstrom else 1.0
+        self._units = ("Å", "eV") if angstrom else ("bohr", "Eh")
+        lu, eu = self._units
+        headers = ["Subshell", "Electrons", f"ζ / {lu}⁻¹", "Z_eff", "n*", f"⟨r⟩ / {lu}",
+                   f"r_max / {lu}", f"ε / {eu}"]
+        for column, text in enumerate(headers):
+            header = self.horizontalHeaderItem(column)
+            if header is not None:
+                header.setText(text)
+        self.blockSignals(True)
+        self.setRowCount(len(rows))
+        for i, row in enumerate(rows):
+            cells = [row.label, str(row.occupancy), _num(row.zeta / length), _num(row.z_eff),
+                     _num(row.n_star, 1), _num(row.r_mean * length), _num(row.r_max * length),
+                     _num(None if row.energy is None else row.energy * energy)]
+            for column, text in enumerate(cells):
+                item = QTableWidgetItem(text)
+                align = Qt.AlignmentFlag.AlignLeft if column == 0 else Qt.AlignmentFlag.AlignRight
+                item.setTextAlignment(align | Qt.AlignmentFlag.AlignVCenter)
+                if column == 0 and row.notes:
+                    item.setToolTip("\n".join(row.notes))
+                    item.setText(f"{text} *")
+                self.setItem(i, column, item)
+            if row.label == selected:
+                self.selectRow(i)
+        self.blockSignals(False)
+
+    def as_text(self) -> str:
+        """The table as tab-separated text with a header row (what Copy puts on the clipboard)."""
+        headers = [self.horizontalHeaderItem(c).text() for c in range(self.columnCount())]
+        lines = ["\t".join(headers)]
+        for r in range(self.rowCount()):
+            cells = []
+            for c in range(self.columnCount()):
+                item = self.item(r, c)
+                cells.append(item.text().rstrip(" *") if item is not None else "")
+            lines.append("\t".join(cells))
+        return "\n".join(lines)
+
+    def copy_to_clipboard(self) -> None:
+        """Put :meth:`as_text` on the clipboard."""
+        QGuiApplication.clipboard().setText(self.as_text())
+
+    def _on_selection(self) -> None:
+        rows = {index.row() for index in self.selectedIndexes()}
+        if len(rows) == 1:
+            row = rows.pop()
+            if 0 <= row < len(self._rows):
+                self.subshell_selected.emit(self._rows[row].label)
+
+
+def _num(value: float | None, digits: int = 4) -> str:
+    return "—" if value is None or not math.isfinite(value) else f"{value:.{digits}f}"
