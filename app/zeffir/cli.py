@@ -1,8 +1,11 @@
 """The ``zeffir`` command line.
 
 ``zeffir`` with no arguments shows the built-in demo; ``zeffir table SPEC`` prints
-a subshell table (``--json`` for one machine-readable object in atomic units).
-Bad input prints the reason on stderr and exits with status 2, never a traceback.
+a subshell table (``--json`` for one machine-readable object in atomic units);
+``zeffir figure SPEC --out FILE`` writes a figure or data file of the radial or
+slice view (the format follows the suffix), optionally comparing two models or
+two specs. Bad input prints the reason on stderr and exits with status 2, never a
+traceback, and leaves no partial file.
 """
 
 from __future__ import annotations
@@ -12,11 +15,14 @@ import json
 import math
 import sys
 from collections.abc import Sequence
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from zeffir import __version__
 
-__all__ = ["main", "table_json"]
+if TYPE_CHECKING:
+    from zeffir.state import OrbitalChoice, ViewState
+
+__all__ = ["figure_state", "main", "parse_orbital", "table_json"]
 
 EXIT_BAD_INPUT = 2
 
@@ -46,7 +52,70 @@ def _parser() -> argparse.ArgumentParser:
                        help="units of the text table (JSON is always atomic)")
     table.add_argument("--json", action="store_true",
                        help="print one JSON object in atomic units instead of a table")
+    _add_figure_parser(commands, DEFAULT_MODEL, model_names())
     return parser
+
+
+def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str]) -> None:
+    from zeffir.export import COLUMN_WIDTHS, DPI_RANGE, EXPORT_FORMATS
+    from zeffir.state import RADIAL_QUANTITIES, SLICE_QUANTITIES
+
+    figure = commands.add_parser(
+        "figure",
+        help="write a figure (.png .svg .pdf) or the data (.csv .npz) of a view",
+        description="Write the radial or slice view of an atom or ion as a publication figure "
+        f"or a data file; the format follows the suffix of --out ({' '.join(EXPORT_FORMATS)}). "
+        "Radial data go to .csv, slice data to .npz.",
+    )
+    figure.add_argument("spec", nargs="+", metavar="SPEC",
+                        help="atom spec, e.g. Fe, 26, Fe3+, O2-, 'C 1s2 2s1 2p3', 'Na [Ne] 4d1'")
+    figure.add_argument("--out", required=True, metavar="FILE",
+                        help="output file: .png .svg .pdf (figure), .csv (radial data), .npz (slice data)")
+    figure.add_argument("--view", default="radial", choices=("radial", "slice"),
+                        help="radial curves or a 2D slice (default radial)")
+    figure.add_argument("--model", default=default_model, choices=models,
+                        help=f"model (default {default_model})")
+    figure.add_argument("--versus", metavar="B",
+                        help="compare side by side, with the difference: a model name compares "
+                        "models on the same spec; anything else is a second spec under --model")
+    figure.add_argument("--no-difference", action="store_true",
+                        help="with --versus: leave out the difference panel")
+    figure.add_argument("--orbital", metavar="LABEL",
+                        help="orbital shown: 3s, 2px, 3dxy, 4fxyz (real), or 3p:-1 (complex, m = -1); "
+                        "default the outermost subshell. The radial view emphasises its subshell")
+    figure.add_argument("--quantity", choices=(*RADIAL_QUANTITIES, *SLICE_QUANTITIES),
+                        help="radial: R, P, D (default), Q; slice: psi (default), psi2, density")
+    figure.add_argument("--per-electron", action="store_true",
+                        help="radial D and Q per electron instead of weighted by occupancy")
+    figure.add_argument("--log", action="store_true",
+                        help="radial: logarithmic r axis; slice: logarithmic colour scale (psi2, density)")
+    figure.add_argument("--r-max", type=float, metavar="R",
+                        help="radial: outer end of the r axis, in the --units length (default automatic)")
+    figure.add_argument("--no-subshells", action="store_true",
+                        help="radial: draw only the total and the chosen orbital's subshell")
+    figure.add_argument("--no-total", action="store_true", help="radial: leave out the total")
+    figure.add_argument("--no-markers", action="store_true",
+                        help="radial: leave out the r_max, <r> and node markers")
+    figure.add_argument("--plane", choices=("xy", "xz", "yz"),
+                        help="slice: coordinate plane (default xz)")
+    figure.add_argument("--normal", type=float, nargs=3, metavar=("NX", "NY", "NZ"),
+                        help="slice: any plane, by its normal vector (instead of --plane)")
+    figure.add_argument("--offset", type=float, metavar="D",
+                        help="slice: distance of the plane from the nucleus, in the --units length "
+                        "(default 0)")
+    figure.add_argument("--extent", type=float, metavar="L",
+                        help="slice: half-width of the square shown, in the --units length (default 8 bohr)")
+    figure.add_argument("--resolution", type=int, metavar="N",
+                        help="slice: grid points along each side (default 256)")
+    figure.add_argument("--contours", type=int, metavar="K",
+                        help="slice: number of contour lines, 0 for none (default 8)")
+    figure.add_argument("--units", default="atomic", choices=("atomic", "angstrom-ev"),
+                        help="lengths in bohr (atomic) or Å; also the unit of --r-max, --offset, --extent")
+    figure.add_argument("--width", choices=tuple(COLUMN_WIDTHS),
+                        help="journal column: single (3.35 in) or double (7.0 in); "
+                        "default double for comparisons, single otherwise")
+    figure.add_argument("--dpi", type=int, default=300,
+                        help=f"PNG resolution, {DPI_RANGE[0]} to {DPI_RANGE[1]} (default 300)")
 
 
 def _finite_or_none(value: float | None) -> float | None:
@@ -142,6 +211,180 @@ def _demo() -> int:
     return 0
 
 
+class _InputError(Exception):
+    """A command-line option is wrong; the message names the option."""
+
+
+def parse_orbital(label: str) -> OrbitalChoice:
+    """Read an orbital option: ``3s``, ``2px``, ``3dxy``, ``4fxyz`` (real) or ``3p:-1`` (complex m).
+
+    A bare subshell (``3p``) means its real m = 0 orbital (pz, dz2, ...).
+
+    Raises
+    ------
+    QuantumNumberError
+        Naming the label and the rule it breaks.
+    """
+    from zeffir.core import QuantumNumberError, Subshell
+    from zeffir.core.config import L_LETTERS
+    from zeffir.core.orbitals import real_m_from_label
+    from zeffir.state import OrbitalChoice
+
+    text = label.strip()
+    head, colon, m_text = text.partition(":")
+    digits = len(head) - len(head.lstrip("0123456789"))
+    if digits == 0 or digits == len(head) or head[digits].lower() not in L_LETTERS:
+        raise QuantumNumberError(f"{label}: not an orbital label (e.g. 3s, 2px, 3dxy, 3p:-1)")
+    subshell = Subshell.from_label(head[: digits + 1].lower())
+    rest = head[digits + 1:]
+    if colon:
+        if rest:
+            raise QuantumNumberError(f"{label}: give either a real label (2px) or a complex m (2p:1)")
+        try:
+            m = int(m_text)
+        except ValueError:
+            raise QuantumNumberError(f"{label}: m must be a whole number, e.g. {subshell.label}:-1") from None
+        if abs(m) > subshell.l:
+            raise QuantumNumberError(f"{label}: |m| must be at most l = {subshell.l}")
+        return OrbitalChoice(subshell.label, "complex", m)
+    if not rest:
+        return OrbitalChoice(subshell.label, "real", 0)
+    try:
+        m = real_m_from_label(subshell.l, subshell.letter + rest)
+    except QuantumNumberError as error:
+        reason = str(error).partition(": ")[2]
+        raise QuantumNumberError(f"{label}: {reason}") from None
+    return OrbitalChoice(subshell.label, "real", m)
+
+
+def _length_in_bohr(value: float | None, units: str, option: str) -> float | None:
+    from zeffir.core import ANGSTROM_PER_BOHR
+
+    if value is None:
+        return None
+    if not math.isfinite(value):
+        raise _InputError(f"{option}: {value} is not a finite number")
+    return value if units == "atomic" else value / ANGSTROM_PER_BOHR
+
+
+# The state names its fields; the command line names its options.
+_STATE_FIELD_OPTIONS = {
+    "compare.right.spec": "--versus",
+    "compare.right.model": "--versus",
+    "radial.r_limit": "--r-max",
+    "slice.normal": "--normal",
+    "slice.offset": "--offset",
+    "slice.extent": "--extent",
+    "slice.resolution": "--resolution",
+    "slice.contours": "--contours",
+}
+
+
+def figure_state(args: argparse.Namespace) -> ViewState:
+    """Build the view state that ``zeffir figure`` exports from its parsed options."""
+    from dataclasses import replace
+
+    from zeffir.core import ZeffirError, model_names, parse_spec
+    from zeffir.state import (
+        RADIAL_QUANTITIES,
+        SLICE_QUANTITIES,
+        CompareSettings,
+        OrbitalChoice,
+        RadialSettings,
+        SliceSettings,
+        Source,
+        StateError,
+        ViewState,
+    )
+
+    spec = " ".join(args.spec)
+    configuration = parse_spec(spec)
+    view = args.view
+    if args.quantity is not None:
+        allowed = RADIAL_QUANTITIES if view == "radial" else SLICE_QUANTITIES
+        if args.quantity not in allowed:
+            raise _InputError(f"--quantity {args.quantity}: not shown by the {view} view "
+                              f"(use one of {', '.join(allowed)})")
+    if args.orbital is not None:
+        try:
+            orbital = parse_orbital(args.orbital)
+        except ZeffirError as error:
+            raise _InputError(f"--orbital {error}") from None
+        occupied = [sub.label for sub, _ in configuration.occupations]
+        if orbital.subshell not in occupied:
+            raise _InputError(f"--orbital {args.orbital}: {configuration.spec} has no "
+                              f"{orbital.subshell} electrons (occupied: {' '.join(occupied)})")
+    else:
+        orbital = OrbitalChoice("", "real", 0)  # reconciled below to the outermost subshell
+    if args.plane is not None and args.normal is not None:
+        raise _InputError("--plane and --normal: give one or the other")
+    if args.normal is not None and not all(math.isfinite(c) for c in args.normal):
+        raise _InputError("--normal: three finite numbers, not all zero")
+    radial = RadialSettings(
+        quantity=args.quantity if view == "radial" and args.quantity else "D",
+        weighted=not args.per_electron,
+        show_subshells=not args.no_subshells,
+        show_total=not args.no_total,
+        show_markers=not args.no_markers,
+        log_r=bool(args.log) and view == "radial",
+        r_limit=_length_in_bohr(args.r_max, args.units, "--r-max"),
+    )
+    slice_quantity: Any = args.quantity if view == "slice" and args.quantity else "psi"
+    if view == "slice" and args.log and slice_quantity == "psi":
+        raise _InputError("--log: ψ is signed and has no logarithmic scale; use --quantity psi2 or density")
+    defaults = SliceSettings()
+    offset = _length_in_bohr(args.offset, args.units, "--offset")
+    extent = _length_in_bohr(args.extent, args.units, "--extent")
+    slice_settings = replace(
+        defaults,
+        plane="custom" if args.normal is not None else (args.plane or defaults.plane),
+        normal=tuple(args.normal) if args.normal is not None else defaults.normal,
+        offset=defaults.offset if offset is None else offset,
+        extent=defaults.extent if extent is None else extent,
+        resolution=defaults.resolution if args.resolution is None else args.resolution,
+        contours=defaults.contours if args.contours is None else args.contours,
+        quantity=slice_quantity,
+        log_scale=bool(args.log) and view == "slice",
+    )
+    compare = CompareSettings(enabled=False, right=Source(spec, args.model),
+                              show_difference=not args.no_difference)
+    if args.versus is not None:
+        versus = args.versus.strip()
+        right = Source(spec, versus) if versus in model_names() else Source(versus, args.model)
+        compare = replace(compare, enabled=True, right=right)
+    state = ViewState(
+        left=Source(spec, args.model),
+        orbital=orbital,
+        view=view,
+        length_unit="bohr" if args.units == "atomic" else "angstrom",
+        radial=radial,
+        slice=slice_settings,
+        compare=compare,
+    )
+    try:
+        return state.validated()
+    except StateError as error:
+        message = str(error)
+        field, _, reason = message.partition(": ")
+        option = _STATE_FIELD_OPTIONS.get(field)
+        if option is None and field.startswith("compare.right."):
+            option = "--versus"
+        raise _InputError(f"{option}: {reason}" if option else message) from None
+    except ZeffirError as error:  # pragma: no cover - validation raises StateError
+        raise _InputError(str(error)) from None
+
+
+def _figure(args: argparse.Namespace) -> int:
+    from zeffir.export import DPI_RANGE, export_view
+
+    if not DPI_RANGE[0] <= args.dpi <= DPI_RANGE[1]:
+        raise _InputError(f"--dpi {args.dpi}: must be between {DPI_RANGE[0]} and {DPI_RANGE[1]}")
+    state = figure_state(args)
+    written = export_view(state, args.out, width=args.width, dpi=args.dpi)
+    print(f"wrote {written}")
+    return 0
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the exit status."""
     from zeffir.core import ZeffirError
@@ -157,7 +400,9 @@ def main(argv: Sequence[str] | None = None) -> int:
             else:
                 print(_format_table(spec, args.model, args.units))
             return 0
-    except ZeffirError as error:
+        if args.command == "figure":
+            return _figure(args)
+    except (ZeffirError, _InputError) as error:
         print(f"zeffir: {error}", file=sys.stderr)
         return EXIT_BAD_INPUT
     except BrokenPipeError:  # output piped into a reader that closed early (e.g. head)

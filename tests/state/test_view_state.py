@@ -49,7 +49,8 @@ def test_round_trip_keeps_every_field():
 def test_invalid_fields_are_named(patch, message):
     data = ViewState().to_dict()
     for key, value in patch.items():
-        data[key] = {**data[key], **value} if isinstance(value, dict) and isinstance(data[key], dict) else value
+        merge = isinstance(value, dict) and isinstance(data[key], dict)
+        data[key] = {**data[key], **value} if merge else value
     with pytest.raises(StateError) as caught:
         ViewState.from_dict(data)
     assert message in str(caught.value)

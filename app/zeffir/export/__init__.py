@@ -1,1 +1,36 @@
-"""Figure, data and session files: written atomically, from the scenes the window shows."""
+"""Figure, data and session files: written atomically, from the scenes the window shows.
+
+The window and the command line both call :func:`export_view`; the format follows
+the file's suffix. Sessions (``.zeffir``) store the view state as JSON.
+"""
+
+from zeffir.export._atomic import atomic_file, atomic_path, write_atomic
+from zeffir.export._data import CAUTION, DATA_FORMATS, write_data
+from zeffir.export._errors import ExportError, SessionError
+from zeffir.export._figures import DPI_RANGE, FIGURE_FORMATS, write_figure
+from zeffir.export._session import SESSION_KIND, SESSION_SUFFIX, SESSION_VERSION, load_session, save_session
+from zeffir.export._style import COLUMN_WIDTHS
+from zeffir.export._view import EXPORT_FORMATS, export_view, view_target
+
+__all__ = [
+    "CAUTION",
+    "COLUMN_WIDTHS",
+    "DATA_FORMATS",
+    "DPI_RANGE",
+    "EXPORT_FORMATS",
+    "FIGURE_FORMATS",
+    "SESSION_KIND",
+    "SESSION_SUFFIX",
+    "SESSION_VERSION",
+    "ExportError",
+    "SessionError",
+    "atomic_file",
+    "atomic_path",
+    "export_view",
+    "load_session",
+    "save_session",
+    "view_target",
+    "write_atomic",
+    "write_data",
+    "write_figure",
+]

@@ -39,10 +39,12 @@ def compare_radial(state: ViewState) -> RadialComparison:
     span = (min(a for a, _ in spans), max(b for _, b in spans))
     highlight = state.orbital.subshell
     left, right = (radial_scene(s, state.radial, state.length_unit, highlight, span) for s in sources)
-    right_curves = {c.label: c for c in right.curves}
+    # Match curves by subshell (None is the whole atom): labels carry occupancies,
+    # which differ between two atoms.
+    right_curves = {c.subshell: c for c in right.curves}
     diff = tuple(
-        Curve(c.label, c.subshell, c.x, right_curves[c.label].y - c.y)
-        for c in left.curves if c.label in right_curves
+        Curve(c.subshell or c.label, c.subshell, c.x, right_curves[c.subshell].y - c.y)
+        for c in left.curves if c.subshell in right_curves
     )
     difference = replace(
         left,

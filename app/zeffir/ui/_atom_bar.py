@@ -159,7 +159,7 @@ class AtomBar(QWidget):
         for sub, occ in configuration.occupations:
             self.subshell_box.addItem(f"{sub.label}  ({occ})", sub.label)
         self.subshell_box.setCurrentIndex(max(self.subshell_box.findData(orbital.subshell), 0))
-        l = "spdfghi".index(orbital.subshell[-1])  # noqa: E741
+        l = "spdfghi".index(orbital.subshell[-1])
         self.orbital_box.clear()
         for label, m in real_labels(l):
             self.orbital_box.addItem(f"{orbital.subshell[:-1]}{label}", ("real", m))

@@ -18,7 +18,7 @@ from PySide6.QtWidgets import (
 )
 
 from zeffir.scene import QUANTITIES
-from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, RadialSettings, SliceSettings, ViewState
+from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
 
 __all__ = ["ViewControls"]

@@ -80,7 +80,10 @@ class _Trio(QWidget):
             holder.setLayout(column)
             layout.addWidget(holder, 1)
         self.views[1].link_axes(self.views[0])  # type: ignore[arg-type]
-        self.views[2].link_axes(self.views[0])  # type: ignore[arg-type]
+        if factory is SliceView:
+            self.views[2].link_axes(self.views[0])  # type: ignore[arg-type]
+        else:  # radial differences are small: share r only, not the value axis
+            self.views[2].link_axes(self.views[0], y=False)  # type: ignore[call-arg]
 
     def set_columns(self, count: int) -> None:
         for i, (caption, view) in enumerate(zip(self.captions, self.views, strict=True)):
@@ -449,7 +452,7 @@ class MainWindow(QMainWindow):
         return True
 
     # -- Qt overrides ---------------------------------------------------------------
-    def closeEvent(self, event: QCloseEvent) -> None:  # noqa: N802 - Qt override
+    def closeEvent(self, event: QCloseEvent) -> None:
         self.settings.setValue("geometry", self.saveGeometry())
         self.worker.shutdown()
         super().closeEvent(event)

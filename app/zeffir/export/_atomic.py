@@ -1,0 +1,208 @@
+"""Write files atomically: a reader sees the old file or the complete new one, never a part.
+
+Data go to a temporary file in the target's directory (so the final rename stays on
+one file system), are flushed and synced to disk, and the temporary file then
+replaces the target with :func:`os.replace`. On any failure the temporary file is
+removed and the target is left as it was.
+"""
+
+from __future__ import annotations
+
+import contextlib
+import os
+import secrets
+from collections.abc import Iterator
+from pathlib import Path
+from typing import BinaryIO
+
+from zeffir.export._errors import ExportError
+
+__all__ = ["atomic_file", "atomic_path", "cannot_write", "write_atomic"]
+
+_ATTEMPTS = 16
+
+
+def cannot_write(path: str | os.PathLike[str], error: OSError) -> ExportError:
+    """The error to raise when ``path`` cannot be written: ``'<path>: cannot write (<reason>)'``."""
+    reason = error.strerror or str(error) or type(error).__name__
+    return ExportError(f"{os.fspath(path)}: cannot write ({reason})")
+
+
+def _check_target(path: Path) -> None:
+    if path.name in ("", ".", ".."):
+        raise ExportError(f"{path}: cannot write (not a file name)")
+    if path.is_dir():
+        raise ExportError(f"{path}: cannot write (Is a directory)")
+
+
+def _open_temporary(path: Path) -> tuple[Path, int]:
+    """Create a new, empty temporary file beside ``path``; return it and its descriptor.
+
+    ``os.open`` with mode 0o666 lets the user's umask decide the permissions, as for
+    any ordinary new file (``tempfile.mkstemp`` would make it private, 0o600).
+    """
+    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
+    for _ in range(_ATTEMPTS):
+        # Keep the target's suffix last, for writers that pick a format from it.
+        temporary = path.with_name(f".{path.stem}.{secrets.token_hex(4)}.tmp{path.suffix}")
+        try:
+            return temporary, os.open(temporary, flags, 0o666)
+        except FileExistsError:
+            continue
+        except OSError as error:
+            raise cannot_write(path, error) from error
+    raise ExportError(f"{path}: cannot write (no free temporary name in {path.parent})")
+
+
+def _sync_file(temporary: Path) -> None:
+    # Writers that take a path closed the file already; reopen it to sync its data.
+    fd = os.open(temporary, os.O_RDWR | getattr(os, "O_BINARY", 0))
+    try:
+        os.fsync(fd)
+    finally:
+        os.close(fd)
+
+
+def _sync_directory(directory: Path) -> None:
+    """Make the rename itself durable where the platform allows it (POSIX)."""
+    try:
+        fd = os.open(directory, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(fd)
+    except OSError:
+        pass
+    finally:
+        os.close(fd)
+
+
+def _discard(temporary: Path) -> None:
+    with contextlib.suppress(FileNotFoundError):
+        temporary.unlink()
+
+
+def _commit(temporary: Path, path: Path) -> None:
+    try:
+        os.replace(temporary, path)
+    except OSError as error:
+        raise cannot_write(path, error) from error
+    _sync_directory(path.parent if str(path.parent) else Path("."))
+
+
+@contextlib.contextmanager
+def atomic_path(path: str | os.PathLike[str]) -> Iterator[Path]:
+    """Give a writer a temporary path that replaces ``path`` when the block succeeds.
+
+    For writers that want a file name rather than a file object. The temporary
+    name ends with the target's suffix.
+
+    Parameters
+    ----------
+    path : str or path-like
+        The file to create or replace.
+
+    Yields
+    ------
+    Path
+        An empty temporary file in the same directory; write it, closing it before
+        the block ends.
+
+    Raises
+    ------
+    ExportError
+        ``'<path>: cannot write (<reason>)'`` if the file system refuses; the target
+        is then untouched and no temporary file is left behind. Any other exception
+        raised inside the block also removes the temporary file and propagates.
+    """
+    target = Path(path)
+    _check_target(target)
+    temporary, fd = _open_temporary(target)
+    os.close(fd)
+    try:
+        yield temporary
+        _sync_file(temporary)
+        _commit(temporary, target)
+    except OSError as error:
+        _discard(temporary)
+        if isinstance(error, ExportError):
+            raise
+        raise cannot_write(target, error) from error
+    except BaseException:
+        _discard(temporary)
+        raise
+
+
+@contextlib.contextmanager
+def atomic_file(path: str | os.PathLike[str]) -> Iterator[BinaryIO]:
+    """Give a writer a binary file object whose content replaces ``path`` when the block succeeds.
+
+    Parameters
+    ----------
+    path : str or path-like
+        The file to create or replace.
+
+    Yields
+    ------
+    BinaryIO
+        A temporary file in the same directory, opened for binary writing. It is
+        flushed, synced and closed when the block ends.
+
+    Raises
+    ------
+    ExportError
+        As for :func:`atomic_path`.
+    """
+    target = Path(path)
+    _check_target(target)
+    temporary, fd = _open_temporary(target)
+    try:
+        with os.fdopen(fd, "wb") as stream:
+            yield stream
+            stream.flush()
+            os.fsync(stream.fileno())
+        _commit(temporary, target)
+    except OSError as error:
+        _discard(temporary)
+        if isinstance(error, ExportError):
+            raise
+        raise cannot_write(target, error) from error
+    except BaseException:
+        _discard(temporary)
+        raise
+
+
+def write_atomic(path: str | os.PathLike[str], data: bytes | str) -> Path:
+    """Write ``data`` to ``path`` atomically (text is encoded as UTF-8).
+
+    Parameters
+    ----------
+    path : str or path-like
+        The file to create or replace.
+    data : bytes or str
+        The complete content.
+
+    Returns
+    -------
+    Path
+        The path written.
+
+    Raises
+    ------
+    ExportError
+        ``'<path>: cannot write (<reason>)'``; nothing is left half-written.
+
+    Examples
+    --------
+    >>> import tempfile, pathlib
+    >>> folder = pathlib.Path(tempfile.mkdtemp())
+    >>> write_atomic(folder / "a.txt", "r / bohr").read_text(encoding="utf-8")
+    'r / bohr'
+    >>> sorted(p.name for p in folder.iterdir())
+    ['a.txt']
+    """
+    payload = data.encode("utf-8") if isinstance(data, str) else bytes(data)
+    target = Path(path)
+    with atomic_file(target) as stream:
+        stream.write(payload)
+    return target

@@ -1,0 +1,220 @@
+"""Data files of a view: CSV for radial curves, NPZ for slices, both with their metadata.
+
+The arrays written are the scene's own arrays, unrounded (CSV uses the shortest text
+that reads back to the same double), so what is exported is exactly what is shown.
+"""
+
+from __future__ import annotations
+
+import json
+import os
+from pathlib import Path
+from typing import Any, Final
+
+import numpy as np
+
+from zeffir import __version__
+from zeffir.core import CODATA_EDITION
+from zeffir.export._atomic import atomic_file, write_atomic
+from zeffir.export._errors import ExportError
+from zeffir.scene import (
+    QUANTITIES,
+    RadialComparison,
+    RadialScene,
+    SliceComparison,
+    SliceScene,
+    unit_text,
+)
+
+__all__ = ["CAUTION", "DATA_FORMATS", "write_data"]
+
+#: Data formats, by file suffix.
+DATA_FORMATS: Final[tuple[str, ...]] = (".csv", ".npz")
+
+#: The caution every data file carries.
+CAUTION: Final[str] = (
+    "model estimate: non-relativistic, no electron correlation except where stated, point nucleus; "
+    "for insight and figures, not a substitute for validated production calculations"
+)
+
+
+def write_data(target: RadialScene | SliceScene | RadialComparison | SliceComparison,
+               path: str | os.PathLike[str]) -> Path:
+    """Write the numbers of a view: ``.csv`` for radial scenes, ``.npz`` for slices.
+
+    Parameters
+    ----------
+    target : RadialScene, SliceScene, RadialComparison or SliceComparison
+        What the view shows.
+    path : str or path-like
+        ``.csv`` (radial): ``#`` header lines (spec, model, quantity, units, Zeffir
+        version, CODATA edition, caution), one row of column names, then r and one
+        column per curve; comparison columns are prefixed ``left:``, ``right:`` and
+        ``difference:``.
+        ``.npz`` (slice): arrays ``values`` (the quantity in display units, ``[j, i]`` at
+        (u_i, v_j)), ``image`` (what is mapped to colours), ``u`` (grid coordinates; v = u)
+        and ``metadata`` (a JSON string); a comparison adds ``left_values``,
+        ``right_values``, ``difference`` (= right − left), ``right_image`` and
+        ``difference_image``, while ``values`` and ``image`` are the left panel's.
+
+    Returns
+    -------
+    Path
+        The file written (atomically).
+
+    Raises
+    ------
+    ExportError
+        A suffix that does not suit the target (curves go to CSV, slices to NPZ), or
+        the file cannot be written.
+    """
+    target_path = Path(path)
+    suffix = target_path.suffix.lower()
+    radial = isinstance(target, RadialScene | RadialComparison)
+    sliced = isinstance(target, SliceScene | SliceComparison)
+    if suffix not in DATA_FORMATS:
+        raise ExportError(f"{target_path}: data are written as {', '.join(DATA_FORMATS)} "
+                          f"(not {suffix or 'a name without suffix'})")
+    if radial and suffix == ".npz":
+        raise ExportError(f"{target_path}: radial curves are written as .csv, not .npz "
+                          "(.npz holds slice images)")
+    if sliced and suffix == ".csv":
+        raise ExportError(f"{target_path}: a slice is written as .npz, not .csv "
+                          "(.csv holds radial curves)")
+    if isinstance(target, RadialScene | RadialComparison):
+        return write_atomic(target_path, _radial_csv(target))
+    if isinstance(target, SliceScene | SliceComparison):
+        arrays = _slice_arrays(target)
+        with atomic_file(target_path) as stream:
+            np.savez_compressed(stream, **arrays)
+        return target_path
+    raise ExportError(f"{target_path}: cannot write data of a {type(target).__name__}")
+
+
+# --- radial: CSV -----------------------------------------------------------------------------
+
+
+def _number(value: float) -> str:
+    # repr is the shortest text that reads back to the same double; "nan"/"inf" stay readable.
+    return repr(float(value))
+
+
+def _radial_csv(target: RadialScene | RadialComparison) -> str:
+    if isinstance(target, RadialScene):
+        panels = [("", target)]
+        head = target
+    else:
+        panels = [("left:", target.left), ("right:", target.right), ("difference:", target.difference)]
+        head = target.left
+    x = _shared_x(panels)
+    names = ["r"]
+    columns: list[np.ndarray] = [x]
+    for prefix, scene in panels:
+        for curve in scene.curves:
+            names.append(f"{prefix}{curve.label}")
+            columns.append(curve.y)
+    quantity = QUANTITIES[head.quantity]
+    lines = ["# Zeffir radial data"]
+    if isinstance(target, RadialComparison):
+        lines += [
+            f"# left: spec {target.left.spec}; model {target.left.model}",
+            f"# right: spec {target.right.spec}; model {target.right.model}",
+            "# difference: right − left, curve by curve",
+        ]
+    else:
+        lines += [f"# spec: {head.spec}", f"# model: {head.model}"]
+    y_unit = head.y_label.split(" / ", 1)[1] if " / " in head.y_label else head.y_label
+    lines += [
+        f"# quantity: {quantity.key}, {quantity.name}; {quantity.formula}",
+        f"# units: r in {head.x_label.split(' / ', 1)[-1]}; every other column in {y_unit}",
+        f"# written by zeffir {__version__}; constants {CODATA_EDITION} (via scipy.constants)",
+        f"# caution: {CAUTION}",
+        ",".join(_csv_field(name) for name in names),
+    ]
+    table = np.column_stack(columns)
+    body = "\n".join(",".join(_number(v) for v in row) for row in table.tolist())
+    return "\n".join(lines) + "\n" + body + "\n"
+
+
+def _csv_field(text: str) -> str:
+    if any(ch in text for ch in ',"\n'):
+        return '"' + text.replace('"', '""') + '"'
+    return text
+
+
+def _shared_x(panels: list[tuple[str, RadialScene]]) -> np.ndarray:
+    curves = [c for _, scene in panels for c in scene.curves]
+    if not curves:
+        raise ExportError("radial data: the view has no curves to write")
+    x = curves[0].x
+    if any(c.x.shape != x.shape or not np.array_equal(c.x, x) for c in curves[1:]):
+        raise ExportError("radial data: the curves do not share one r grid")
+    return x
+
+
+# --- slices: NPZ -----------------------------------------------------------------------------
+
+
+def _slice_metadata(scene: SliceScene) -> dict[str, Any]:
+    quantity = QUANTITIES[scene.quantity]
+    length = "bohr" if scene.length_unit == "bohr" else "Å"
+    value_unit = unit_text(scene.length_unit, quantity.length_power)
+    return {
+        "title": scene.title,
+        "spec": scene.spec,
+        "model": scene.model,
+        "orbital": scene.orbital,
+        "quantity": scene.quantity,
+        "quantity_name": quantity.name,
+        "formula": quantity.formula,
+        "plane_text": scene.plane_text,
+        "axis_labels": list(scene.axis_labels),
+        "value_label": scene.value_label,
+        "units": {
+            "u": length,
+            "values": value_unit,
+            "image": f"log10 of {value_unit}" if scene.log_scale else value_unit,
+        },
+        "signed": scene.signed,
+        "log_scale": scene.log_scale,
+        "colour_range": [float(v) for v in scene.colour_range],
+        "contour_levels": [float(v) for v in scene.levels],
+    }
+
+
+def _slice_arrays(target: SliceScene | SliceComparison) -> dict[str, Any]:
+    common = {
+        "zeffir_version": __version__,
+        "constants": f"{CODATA_EDITION} (via scipy.constants)",
+        "caution": CAUTION,
+        "layout": "values[j, i] is at (u[i], v[j]); v = u",
+    }
+    if isinstance(target, SliceScene):
+        metadata = {"kind": "zeffir-slice", **common, **_slice_metadata(target)}
+        arrays = {"values": target.values, "image": target.image}
+        coordinates = target.coordinates
+    else:
+        metadata = {
+            "kind": "zeffir-slice-comparison",
+            **common,
+            "arrays": "values, image: left panel; right_values, right_image: right panel; "
+                      "difference = right_values − left_values, difference_image its colour image",
+            "left": _slice_metadata(target.left),
+            "right": _slice_metadata(target.right),
+            "difference": _slice_metadata(target.difference),
+        }
+        arrays = {
+            "values": target.left.values,
+            "image": target.left.image,
+            "left_values": target.left.values,
+            "right_values": target.right.values,
+            "right_image": target.right.image,
+            "difference": target.difference.values,
+            "difference_image": target.difference.image,
+        }
+        coordinates = target.left.coordinates
+    text = json.dumps(metadata, ensure_ascii=False, indent=1)
+    return {**{k: np.asarray(v) for k, v in arrays.items()}, "u": np.asarray(coordinates),
+            "metadata": np.asarray(text)}
+
+

@@ -1,0 +1,126 @@
+"""The publication style of exported figures: journal column widths, fonts, lines, colours.
+
+Kept as plain data so that nothing here imports matplotlib; the figure module
+applies it inside :func:`matplotlib.rc_context` and never touches the global
+defaults of a running application.
+"""
+
+from __future__ import annotations
+
+import re
+from typing import Any, Final
+
+__all__ = [
+    "COLUMN_WIDTHS",
+    "FONT_FAMILY",
+    "LABEL_SIZE",
+    "LINE_COLOURS",
+    "LINE_STYLES",
+    "LINE_WIDTH",
+    "TICK_SIZE",
+    "rc_parameters",
+    "subshell_line_style",
+]
+
+#: Figure widths in inches: one journal column (85 mm) and the full page width (178 mm).
+COLUMN_WIDTHS: Final[dict[str, float]] = {"single": 3.35, "double": 7.0}
+
+#: Font sizes in points: axis labels, and tick labels / legends / panel titles.
+LABEL_SIZE: Final[float] = 8.0
+TICK_SIZE: Final[float] = 7.0
+
+#: Line width of curves, in points (the atom's total and the emphasised subshell are drawn thicker).
+LINE_WIDTH: Final[float] = 0.8
+
+#: DejaVu Sans ships with matplotlib and covers the labels' superscripts (⁻³ᐟ²) and Greek;
+#: STIXGeneral (also shipped) fills the few symbols it lacks, such as ⟂.
+FONT_FAMILY: Final[tuple[str, ...]] = ("DejaVu Sans", "STIXGeneral")
+
+#: Okabe and Ito's colour-blind-safe qualitative palette (without black, kept for the
+#: total, and without yellow, too pale on white), for subshell curves; the same colours
+#: in the same order as the window's radial view.
+#: Reference: M. Okabe and K. Ito, "Color Universal Design" (2008).
+LINE_COLOURS: Final[tuple[str, ...]] = (
+    "#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9",
+)
+
+#: Cycled after the colours, so that more subshells than colours stay distinct.
+LINE_STYLES: Final[tuple[str, ...]] = ("-", "--", "-.")
+
+_L_LETTERS: Final = "spdfghik"
+#: Subshells in filling order (n + l, then n): a subshell keeps its colour in every atom,
+#: on screen and in the figure.
+_FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
+    sorted(((n, l) for n in range(1, 9) for l in range(n)), key=lambda nl: (nl[0] + nl[1], nl[0]))
+)
+_SUBSHELL: Final = re.compile(r"^\s*(\d+)([spdfghik])")
+
+
+def subshell_line_style(subshell: str | None, fallback: int = 0) -> tuple[str, str]:
+    """Colour and matplotlib line style of a subshell's curve; the total (None) is solid black.
+
+    Parameters
+    ----------
+    subshell : str or None
+        A label such as ``"3d"``.
+    fallback : int
+        Index used when the label cannot be read as n and l.
+    """
+    if subshell is None:
+        return "#000000", "-"
+    index = fallback
+    match = _SUBSHELL.match(subshell)
+    if match:
+        nl = (int(match.group(1)), _L_LETTERS.index(match.group(2)))
+        if nl in _FILLING_ORDER:
+            index = _FILLING_ORDER.index(nl)
+    colour = LINE_COLOURS[index % len(LINE_COLOURS)]
+    return colour, LINE_STYLES[(index // len(LINE_COLOURS)) % len(LINE_STYLES)]
+
+
+def rc_parameters() -> dict[str, Any]:
+    """matplotlib settings of the publication style (applied with ``rc_context``)."""
+    return {
+        "font.family": list(FONT_FAMILY),
+        "font.size": LABEL_SIZE,
+        "axes.labelsize": LABEL_SIZE,
+        "axes.titlesize": TICK_SIZE,
+        "axes.linewidth": 0.6,
+        "axes.labelpad": 2.5,
+        "axes.unicode_minus": True,
+        "mathtext.fontset": "dejavusans",
+        "xtick.labelsize": TICK_SIZE,
+        "ytick.labelsize": TICK_SIZE,
+        "xtick.major.width": 0.6,
+        "ytick.major.width": 0.6,
+        "xtick.minor.width": 0.4,
+        "ytick.minor.width": 0.4,
+        "xtick.major.size": 3.0,
+        "ytick.major.size": 3.0,
+        "xtick.minor.size": 1.6,
+        "ytick.minor.size": 1.6,
+        "xtick.major.pad": 2.5,
+        "ytick.major.pad": 2.5,
+        "legend.fontsize": TICK_SIZE,
+        "legend.frameon": False,
+        "legend.handlelength": 1.8,
+        "legend.handletextpad": 0.5,
+        "legend.labelspacing": 0.25,
+        "legend.borderaxespad": 0.4,
+        "legend.columnspacing": 1.0,
+        "lines.linewidth": LINE_WIDTH,
+        "lines.solid_capstyle": "butt",
+        "contour.linewidth": 0.4,
+        "contour.negative_linestyle": "dashed",
+        "image.interpolation": "nearest",
+        "savefig.facecolor": "white",
+        "figure.facecolor": "white",
+        "figure.constrained_layout.h_pad": 0.03,
+        "figure.constrained_layout.w_pad": 0.03,
+        "figure.constrained_layout.hspace": 0.02,
+        "figure.constrained_layout.wspace": 0.02,
+        # TrueType (not Type 3) fonts in PDF: editable text, as journals ask for.
+        "pdf.fonttype": 42,
+        # Glyphs as outlines in SVG, so the figure looks the same without our fonts.
+        "svg.fonttype": "path",
+    }

@@ -1,0 +1,93 @@
+"""Export what the window shows: one entry point for the window and the command line."""
+
+from __future__ import annotations
+
+import os
+from pathlib import Path
+from typing import Final
+
+from zeffir.export._data import DATA_FORMATS, write_data
+from zeffir.export._errors import ExportError
+from zeffir.export._figures import FIGURE_FORMATS, Target, check_figure_options, write_figure
+from zeffir.scene import compare_radial, compare_slices, radial_scene, slice_scene
+from zeffir.state import ViewState
+
+__all__ = ["EXPORT_FORMATS", "export_view", "view_target"]
+
+#: Every suffix :func:`export_view` accepts.
+EXPORT_FORMATS: Final[tuple[str, ...]] = (*FIGURE_FORMATS, *DATA_FORMATS)
+
+
+def view_target(state: ViewState) -> Target:
+    """The scene (or comparison) the current view of ``state`` draws.
+
+    Parameters
+    ----------
+    state : ViewState
+        Validated view state; ``state.view`` picks radial or slice, and
+        ``state.compare.enabled`` a side-by-side comparison.
+
+    Returns
+    -------
+    RadialScene, SliceScene, RadialComparison or SliceComparison
+    """
+    if state.view == "radial":
+        if state.compare.enabled:
+            return compare_radial(state)
+        return radial_scene(state.left, state.radial, state.length_unit, state.orbital.subshell)
+    if state.compare.enabled:
+        return compare_slices(state)
+    return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
+
+
+def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | None = None,
+                dpi: int = 300) -> Path:
+    """Write the current view of ``state`` as a figure or a data file, chosen by the suffix.
+
+    Parameters
+    ----------
+    state : ViewState
+        What is on screen. It is validated first.
+    path : str or path-like
+        ``.png``, ``.svg``, ``.pdf`` (figure), ``.csv`` (radial data) or ``.npz`` (slice data).
+    width : {"single", "double"}, optional
+        Figure width (journal column); default double for comparisons, single otherwise.
+    dpi : int
+        Resolution of PNG figures.
+
+    Returns
+    -------
+    Path
+        The file written. It appears complete or not at all.
+
+    Raises
+    ------
+    ExportError
+        Unknown suffix (the message lists the accepted ones), a data format that does
+        not suit the view, or a file that cannot be written.
+    StateError
+        ``state`` is invalid (the message names the field).
+    """
+    target_path = Path(path)
+    suffix = target_path.suffix.lower()
+    if suffix not in EXPORT_FORMATS:
+        raise ExportError(
+            f"{target_path}: unknown file type {suffix or '(no suffix)'}; "
+            f"use one of {', '.join(EXPORT_FORMATS)}"
+        )
+    if suffix == ".csv" and state.view != "radial":
+        raise ExportError(f"{target_path}: .csv holds radial curves; save the slice view as .npz")
+    if suffix == ".npz" and state.view != "slice":
+        raise ExportError(f"{target_path}: .npz holds slice images; save the radial view as .csv")
+    directory = target_path.parent
+    if not directory.is_dir():
+        # Fail before the (possibly long) evaluation; the writer would refuse anyway.
+        raise ExportError(f"{target_path}: cannot write (No such file or directory)")
+    if suffix in FIGURE_FORMATS:
+        check_figure_options(width, dpi)
+    state = state.validated()
+    target = view_target(state)
+    if suffix in DATA_FORMATS:
+        return write_data(target, target_path)
+    return write_figure(target, target_path, width=width, dpi=dpi,
+                        difference=state.compare.show_difference)

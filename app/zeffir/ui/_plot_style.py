@@ -1,0 +1,195 @@
+"""Shared look of the plot views: palette, pens, axis styling, tooltips and number text.
+
+The look is meant for reading numbers and for figures: white ground, dark axes
+framing the plot on four sides, a faint grid, and line colours from the
+Okabe–Ito palette, which stays distinguishable under the common forms of colour
+blindness. Colour maps for slices come from :func:`zeffir.scene.colour_stops` only.
+
+Importing this module sets pyqtgraph's ``imageAxisOrder`` to ``"row-major"``:
+scene arrays are ``values[j, i]`` with ``j`` along the vertical axis.
+
+References
+----------
+M. Okabe and K. Ito, "Color Universal Design (CUD): how to make figures and
+presentations that are friendly to colorblind people" (2002).
+"""
+
+from __future__ import annotations
+
+import math
+import re
+from typing import Final
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import Qt
+from PySide6.QtGui import QFont, QPen
+
+from zeffir.scene import QUANTITIES, colour_stops
+
+__all__ = [
+    "AXIS_COLOUR",
+    "CROSSHAIR_COLOUR",
+    "HIGHLIGHT_WIDTH",
+    "MUTED_TEXT",
+    "PALETTE",
+    "SUBSHELL_WIDTH",
+    "TOTAL_COLOUR",
+    "TOTAL_WIDTH",
+    "colour_map",
+    "format_number",
+    "label_style",
+    "make_pen",
+    "quantity_tooltip",
+    "split_label",
+    "style_plot",
+    "subshell_style",
+    "tick_font",
+]
+
+pg.setConfigOptions(imageAxisOrder="row-major")
+
+#: Okabe–Ito colours for subshell curves. Its yellow (too pale on white) and its
+#: black (kept for the total) are left out.
+PALETTE: Final[tuple[str, ...]] = ("#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9")
+TOTAL_COLOUR: Final = "#000000"
+AXIS_COLOUR: Final = "#262626"
+MUTED_TEXT: Final = "#5a5a5a"
+CROSSHAIR_COLOUR: Final = "#7f7f7f"
+
+#: Pen widths in screen pixels.
+SUBSHELL_WIDTH: Final = 1.6
+HIGHLIGHT_WIDTH: Final = 3.4
+TOTAL_WIDTH: Final = 2.6
+
+#: Beyond the palette's six colours, curves repeat them with these dash styles.
+_DASHES: Final = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DashDotLine)
+
+_L_LETTERS: Final = "spdfghik"
+#: Subshells in filling (n + l, then n) order; a subshell keeps its colour in every atom.
+_FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
+    sorted(((n, l) for n in range(1, 9) for l in range(n)), key=lambda nl: (nl[0] + nl[1], nl[0]))
+)
+_SUBSHELL = re.compile(r"^\s*(\d+)([spdfghik])")
+
+
+def subshell_style(subshell: str | None, fallback: int = 0) -> tuple[str, Qt.PenStyle]:
+    """Colour and dash style of a subshell's curve; the total (``None``) is black and solid.
+
+    Parameters
+    ----------
+    subshell : str or None
+        A label such as ``"3d"``.
+    fallback : int
+        Index used when the label cannot be read as n and l.
+    """
+    if subshell is None:
+        return TOTAL_COLOUR, Qt.PenStyle.SolidLine
+    match = _SUBSHELL.match(subshell)
+    index = fallback
+    if match:
+        nl = (int(match.group(1)), _L_LETTERS.index(match.group(2)))
+        if nl in _FILLING_ORDER:
+            index = _FILLING_ORDER.index(nl)
+    colour = PALETTE[index % len(PALETTE)]
+    dash = _DASHES[(index // len(PALETTE)) % len(_DASHES)]
+    return colour, dash
+
+
+def make_pen(colour: str, width: float, style: Qt.PenStyle = Qt.PenStyle.SolidLine) -> QPen:
+    """A cosmetic pen (width in screen pixels) with round caps."""
+    pen = pg.mkPen(colour, width=width, style=style)
+    pen.setCosmetic(True)
+    pen.setCapStyle(Qt.PenCapStyle.RoundCap)
+    pen.setJoinStyle(Qt.PenJoinStyle.RoundJoin)
+    return pen
+
+
+def tick_font(points: float = 9.0) -> QFont:
+    """The font of tick labels."""
+    font = QFont()  # the application's font: it follows the platform
+    font.setPointSizeF(points)
+    return font
+
+
+def style_plot(plot: pg.PlotItem, grid: bool = True) -> None:
+    """Dark axes on all four sides (values on the left and bottom only) and a faint grid."""
+    for side in ("left", "bottom", "top", "right"):
+        plot.showAxis(side)
+        axis = plot.getAxis(side)
+        axis.setPen(make_pen(AXIS_COLOUR, 1.0))
+        axis.setTextPen(AXIS_COLOUR)
+        # Inward ticks, one level of minor ticks (the second level only crowds the grid),
+        # and the end labels (often "0") kept even where they reach past the axis.
+        # Minor ticks are labelled only where they leave room (not the crowded minor
+        # labels of a log axis).
+        axis.setStyle(tickFont=tick_font(), tickLength=-6, tickTextOffset=4, maxTickLevel=1,
+                      hideOverlappingLabels=12,
+                      textFillLimits=[(0, 0.8), (2, 0.25), (4, 0.15), (6, 0.1)])
+        axis.enableAutoSIPrefix(False)  # never rescale values behind a "(x0.001)" note
+        if side in ("top", "right"):
+            axis.setStyle(showValues=False)
+            if side == "top":
+                axis.setHeight(4)
+            else:
+                axis.setWidth(4)
+    if grid:
+        plot.showGrid(x=True, y=True, alpha=0.13)
+        # The axes draw the grid; put them behind the view box so the grid runs under
+        # the curves and the legend instead of over them.
+        for side in ("left", "bottom", "top", "right"):
+            plot.getAxis(side).setZValue(-200)
+    # The plot's own options menu (FFT, log axes, averaging...) would change the
+    # drawing behind the state's back; the view box menu (view all, export) stays.
+    plot.setMenuEnabled(enableMenu=False, enableViewBoxMenu=True)
+    plot.hideButtons()
+
+
+def label_style(points: float = 10.0) -> dict[str, str]:
+    """Keyword style for ``PlotItem.setLabel`` / ``AxisItem.setLabel``."""
+    return {"color": AXIS_COLOUR, "font-size": f"{points:g}pt"}
+
+
+def colour_map(signed: bool) -> pg.ColorMap:
+    """The pyqtgraph colour map for signed (RdBu) or non-negative (viridis) data."""
+    positions, colours = colour_stops(signed)
+    return pg.ColorMap(np.asarray(positions), [pg.mkColor(c) for c in colours])
+
+
+def split_label(label: str) -> tuple[str, str]:
+    """``"D(r) / bohr⁻¹, per electron"`` → ``("D(r)", "bohr⁻¹")``; no unit gives ``(label, "")``."""
+    head, sep, unit = label.partition(" / ")
+    if not sep:
+        return label.strip(), ""
+    return head.strip(), unit.split(",")[0].strip()
+
+
+def quantity_tooltip(key: str, label: str) -> str:
+    """Tooltip defining a quantity: its name, formula and the units on screen.
+
+    Parameters
+    ----------
+    key : str
+        A key of :data:`zeffir.scene.QUANTITIES` (``"D"``, ``"psi"``...).
+    label : str
+        The axis or colour bar label, ``"symbol / unit"``.
+    """
+    quantity = QUANTITIES.get(key)
+    _, unit = split_label(label.removeprefix("log₁₀ "))
+    lines = []
+    if quantity is not None:
+        lines += [f"{quantity.symbol}: {quantity.name}", quantity.formula]
+    else:
+        lines.append(label)
+    if label.startswith("log₁₀ "):
+        lines.append("Colours show log₁₀ of the value.")
+    if unit:
+        lines.append(f"Units: {unit}")
+    return "\n".join(lines)
+
+
+def format_number(value: float, digits: int = 4) -> str:
+    """``value`` with ``digits`` significant digits and a true minus sign."""
+    if not math.isfinite(value):
+        return "–"
+    return f"{value:.{digits}g}".replace("-", "−")

@@ -1,0 +1,495 @@
+"""The slice view: draws a :class:`~zeffir.scene.SliceScene` as an image with contours."""
+
+from __future__ import annotations
+
+import html
+import math
+from collections.abc import Callable
+from typing import Final
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import QEvent, QObject, QPointF, QRectF, Qt, QTimer, Signal, Slot
+from PySide6.QtGui import QTextDocument
+from PySide6.QtWidgets import QGraphicsRectItem, QLabel, QSizePolicy, QStackedLayout, QVBoxLayout, QWidget
+
+from zeffir.scene import SliceScene
+from zeffir.ui._plot_style import (
+    AXIS_COLOUR,
+    MUTED_TEXT,
+    colour_map,
+    format_number,
+    label_style,
+    make_pen,
+    quantity_tooltip,
+    split_label,
+    style_plot,
+    tick_font,
+)
+
+__all__ = ["PointOf", "SliceView"]
+
+#: Maps in-plane (u, v) to Cartesian (x, y, z), all in the scene's length unit.
+PointOf = Callable[[float, float], tuple[float, float, float]]
+
+DEFAULT_EMPTY_MESSAGE: Final = "Nothing to show yet: type an atom or a configuration."
+#: Contours are traced on at most this many points per side (the image keeps its resolution).
+CONTOUR_POINTS: Final = 256
+#: If no repaint comes (a hidden view), contours are still drawn after this many ms.
+_CONTOUR_FALLBACK_MS: Final = 60
+_LEVEL_COLOUR_SIGNED: Final = "#505050"
+_LEVEL_COLOUR_DENSITY: Final = "#c8c8c8"
+_LEVEL_WIDTH: Final = 0.9
+_ZERO_WIDTH: Final = 1.6
+_CROSSHAIR_COLOUR: Final = "#1a1a1a"
+_OUTSIDE_COLOUR: Final = "#e4e4e4"
+
+
+class SliceView(QWidget):
+    """A 2D slice through the atom: colour image, colour bar, contours and a read-out.
+
+    The image is placed at the scene's coordinates (u across, v up) with equal
+    scales on both axes. Signed ψ uses the diverging map symmetric about zero,
+    densities the sequential one. Contour levels are thin grey (dashed where
+    negative), the zero contour (nodes of ψ) black. Contours are traced right
+    after the image is on screen, on a grid of at most
+    ``CONTOUR_POINTS``² points, so a new image is never held back by them.
+
+    Signals
+    -------
+    hovered(float, float)
+        The pointer moved over the image: (u, v) in the scene's length unit;
+        (NaN, NaN) when it leaves. :meth:`show_cursor` does not emit it.
+    contours_drawn()
+        The contours of the current scene are on screen (or were cleared).
+    """
+
+    hovered = Signal(float, float)
+    contours_drawn = Signal()
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self._scene: SliceScene | None = None
+        self._point_of: PointOf | None = None
+        self._contours_enabled = True
+        self._contour_levels: tuple[float, ...] = ()
+        self._extent: tuple[float, float, int] | None = None
+        self._signed: bool | None = None
+        self._labels: tuple[str, ...] = ()
+        self._cursor_shown = False
+        self._empty_message = DEFAULT_EMPTY_MESSAGE
+
+        self._graphics = pg.GraphicsLayoutWidget()
+        self._graphics.setBackground("w")
+        self._graphics.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Expanding)
+        self._plot: pg.PlotItem = self._graphics.addPlot(row=0, col=0)
+        style_plot(self._plot, grid=False)
+        box = self._plot.getViewBox()
+        box.setAspectLocked(True, ratio=1.0)
+        box.setDefaultPadding(0.0)
+
+        self._image = pg.ImageItem(axisOrder="row-major")
+        self._plot.addItem(self._image)
+        # Outside the slice is not "zero": a neutral grey keeps it apart from the map's white.
+        box.setBackgroundColor(_OUTSIDE_COLOUR)
+        self._frame = QGraphicsRectItem()
+        self._frame.setPen(make_pen(AXIS_COLOUR, 1.0))
+        self._frame.setZValue(6)
+        self._plot.addItem(self._frame, ignoreBounds=True)
+        self._colour_bar = pg.ColorBarItem(values=(0.0, 1.0), colorMap=colour_map(True), width=16,
+                                           interactive=False, colorMapMenu=False)
+        # Inserted into the plot's own layout, so the bar spans exactly the image's height.
+        self._colour_bar.setImageItem(self._image, insert_in=self._plot)
+        self._style_colour_bar()
+
+        # Positive (or all, for densities) levels, negative levels, zero: one path each,
+        # lines split by NaN.
+        self._contour_items = [pg.PlotCurveItem(connect="finite", antialias=True) for _ in range(3)]
+        self._contour_items[2].setPen(make_pen("#000000", _ZERO_WIDTH))
+        for item in self._contour_items:
+            item.setZValue(5)
+            self._plot.addItem(item, ignoreBounds=True)
+        crosshair = make_pen(_CROSSHAIR_COLOUR, 1.0, Qt.PenStyle.DashLine)
+        self._v_line = pg.InfiniteLine(angle=90, movable=False, pen=crosshair)
+        self._h_line = pg.InfiniteLine(angle=0, movable=False, pen=crosshair)
+        for line in (self._v_line, self._h_line):
+            line.setZValue(20)
+            line.hide()
+            self._plot.addItem(line, ignoreBounds=True)
+
+        self._readout = QLabel()
+        self._readout.setTextFormat(Qt.TextFormat.RichText)
+        self._readout.setWordWrap(True)
+        self._readout.setSizePolicy(QSizePolicy.Policy.Ignored, QSizePolicy.Policy.Fixed)
+        self._readout.setContentsMargins(8, 2, 8, 4)
+        self._readout.setStyleSheet(f"QLabel {{ background: white; color: {AXIS_COLOUR}; }}")
+        self._readout.setFixedHeight(2 * self._readout.fontMetrics().lineSpacing() + 8)
+
+        self._message = QLabel()
+        self._message.setAlignment(Qt.AlignmentFlag.AlignCenter)
+        self._message.setWordWrap(True)
+        self._message.setStyleSheet(f"QLabel {{ background: white; color: {MUTED_TEXT}; padding: 24px; }}")
+
+        page = QWidget()
+        column = QVBoxLayout(page)
+        column.setContentsMargins(0, 0, 0, 0)
+        column.setSpacing(0)
+        column.addWidget(self._graphics, 1)
+        column.addWidget(self._readout)
+        self._stack = QStackedLayout(self)
+        self._stack.addWidget(page)
+        self._stack.addWidget(self._message)
+
+        self._contour_timer = QTimer(self)
+        self._contour_timer.setSingleShot(True)
+        self._contour_timer.timeout.connect(self._draw_contours)
+        self._contours_pending = False
+
+        self._graphics.scene().sigMouseMoved.connect(self._on_mouse_moved)
+        self._graphics.viewport().installEventFilter(self)
+        self.setMinimumSize(420, 380)
+        self._show_message()
+
+    def _style_colour_bar(self) -> None:
+        for side in ("left", "right", "top", "bottom"):
+            axis = self._colour_bar.getAxis(side)
+            axis.setPen(make_pen(AXIS_COLOUR, 1.0))
+            axis.setTextPen(AXIS_COLOUR)
+        values = self._colour_bar.getAxis("right")
+        values.setStyle(tickFont=tick_font(), tickLength=4, maxTickLevel=1)
+        values.enableAutoSIPrefix(False)
+        values.setWidth(None)  # wide enough for the tick values and the label beside them
+        self._colour_bar.getAxis("left").setWidth(2)
+
+    # -- drawing -------------------------------------------------------------------------
+
+    def set_scene(self, scene: SliceScene | None) -> None:
+        """Draw ``scene`` (image first, contours right after); ``None`` shows the empty message.
+
+        Parameters
+        ----------
+        scene : SliceScene or None
+            Image, coordinates, colour scale, contour levels and labels to draw.
+
+        Notes
+        -----
+        The view is refitted only when the extent or resolution changes, so a
+        zoom survives a change of orbital, quantity or colour scale. A colour
+        range set with :meth:`set_colour_range` lasts until the next scene.
+        """
+        if scene is None:
+            self._show_message()
+            return
+        self._scene = scene
+        self._stack.setCurrentIndex(0)
+        coordinates = np.asarray(scene.coordinates, dtype=float)
+        n = coordinates.size
+        step = (coordinates[-1] - coordinates[0]) / (n - 1) if n > 1 else 1.0
+        low, high = scene.colour_range
+        self._image.setImage(scene.image, autoLevels=False, levels=(low, high))
+        start = coordinates[0] - step / 2
+        rect = QRectF(start, start, n * step, n * step)
+        self._image.setRect(rect)
+        self._frame.setRect(rect)
+        if self._signed != scene.signed:
+            self._colour_bar.setColorMap(colour_map(scene.signed))
+            self._signed = scene.signed
+            # Dark grey reads on the light diverging map, light grey on dark viridis.
+            colour = _LEVEL_COLOUR_SIGNED if scene.signed else _LEVEL_COLOUR_DENSITY
+            self._contour_items[0].setPen(make_pen(colour, _LEVEL_WIDTH))
+            self._contour_items[1].setPen(make_pen(colour, _LEVEL_WIDTH, Qt.PenStyle.DashLine))
+        self._colour_bar.setLevels((low, high))
+        extent = (float(coordinates[0]), float(coordinates[-1]), n)
+        if extent != self._extent:
+            self._extent = extent
+            self._plot.getViewBox().setRange(rect, padding=0.0)
+        self._set_labels(scene)
+        self._schedule_contours()
+        if self._cursor_shown:
+            self._draw_cursor(self._v_line.value(), self._h_line.value())
+
+    def _set_labels(self, scene: SliceScene) -> None:
+        labels = (scene.title, scene.plane_text, *scene.axis_labels, scene.value_label, scene.quantity)
+        if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
+            return
+        self._labels = labels
+        self._plot.setTitle(
+            f'<span style="font-size:11pt; color:{AXIS_COLOUR}">{html.escape(scene.title)}</span><br>'
+            f'<span style="font-size:9pt; color:{MUTED_TEXT}">{html.escape(scene.plane_text)}</span>'
+        )
+        self._plot.setLabel("bottom", html.escape(scene.axis_labels[0]), **label_style())
+        self._plot.setLabel("left", html.escape(scene.axis_labels[1]), **label_style())
+        bar_axis = self._colour_bar.getAxis("right")
+        bar_axis.setLabel(html.escape(scene.value_label), **label_style())
+        value_tip = quantity_tooltip(scene.quantity, scene.value_label)
+        if scene.signed:
+            value_tip += "\nRed positive, blue negative; black line: ψ = 0 (node)"
+        for item in (bar_axis, bar_axis.label, self._colour_bar):
+            item.setToolTip(value_tip)
+        self._readout.setToolTip(value_tip)
+        for side, name in (("bottom", scene.axis_labels[0]), ("left", scene.axis_labels[1])):
+            symbol, unit = split_label(name)
+            tip = f"{symbol}: coordinate in the slice plane ({scene.plane_text})\nUnits: {unit}"
+            axis = self._plot.getAxis(side)
+            axis.setToolTip(tip)
+            axis.label.setToolTip(tip)
+        self._plot.titleLabel.setToolTip(f"{scene.spec} under the {scene.model} model; {scene.plane_text}")
+
+    def set_empty_message(self, text: str) -> None:
+        """Clear the view and show ``text`` instead.
+
+        Parameters
+        ----------
+        text : str
+            E.g. a start-up hint; later ``set_scene(None)`` shows it again.
+        """
+        self._empty_message = text
+        self._show_message()
+
+    def _show_message(self) -> None:
+        self._scene = None
+        self._contour_timer.stop()
+        self._contours_pending = False
+        self._clear_contours()
+        self._image.clear()
+        self._frame.setRect(QRectF())
+        self._hide_cursor()
+        self._message.setText(self._empty_message)
+        self._stack.setCurrentIndex(1)
+
+    def set_colour_range(self, low: float, high: float) -> None:
+        """Map the colours over [low, high] until the next scene.
+
+        Parameters
+        ----------
+        low, high : float
+            Limits in ``scene.image`` units (log10 units on a log scale).
+
+        Raises
+        ------
+        ValueError
+            Unless both are finite and ``low < high``.
+        """
+        if not (math.isfinite(low) and math.isfinite(high) and high > low):
+            raise ValueError(f"colour range: need finite low < high, got ({low}, {high})")
+        self._colour_bar.setLevels((float(low), float(high)))
+
+    def set_point_of(self, point_of: PointOf | None) -> None:
+        """Let the read-out show Cartesian coordinates too.
+
+        Parameters
+        ----------
+        point_of : callable (u, v) -> (x, y, z), or None
+            Maps in-plane coordinates to x, y, z, all in the scene's length unit.
+            ``None`` shows u and v only.
+        """
+        self._point_of = point_of
+
+    # -- contours ------------------------------------------------------------------------
+
+    def set_contours_enabled(self, enabled: bool) -> None:
+        """Draw contour lines or skip them entirely.
+
+        Parameters
+        ----------
+        enabled : bool
+            True (the default) traces them after each new image; False clears them.
+        """
+        self._contours_enabled = bool(enabled)
+        if self._contours_enabled:
+            self._schedule_contours()
+        else:
+            self._contour_timer.stop()
+            self._contours_pending = False
+            self._clear_contours()
+
+    def _schedule_contours(self) -> None:
+        if not self._contours_enabled or self._scene is None:
+            return
+        # Traced once the image has been painted (see eventFilter); the fallback
+        # covers a view that is not on screen. A newer scene restarts the wait.
+        self._contours_pending = True
+        self._contour_timer.start(_CONTOUR_FALLBACK_MS)
+
+    def eventFilter(self, watched: QObject, event: QEvent) -> bool:  # Qt override
+        """Start the contours after a paint of the image; hide the cursor when the pointer leaves."""
+        kind = event.type()
+        if kind == QEvent.Type.Paint and self._contours_pending:
+            self._contour_timer.start(0)
+        elif kind == QEvent.Type.Leave:
+            self._leave()
+        return super().eventFilter(watched, event)
+
+    def _draw_contours(self) -> None:
+        self._contours_pending = False
+        scene = self._scene
+        if scene is None or not self._contours_enabled:
+            return
+        import contourpy  # lazily: only needed once a slice is shown
+
+        step = max(1, math.ceil(scene.image.shape[0] / CONTOUR_POINTS))
+        image = np.asarray(scene.image[::step, ::step], dtype=float)
+        if not np.all(np.isfinite(image)):
+            image = np.ma.masked_invalid(image)  # contourpy leaves masked points out
+        coordinates = np.asarray(scene.coordinates, dtype=float)[::step]
+        generator = contourpy.contour_generator(coordinates, coordinates, image,
+                                                line_type=contourpy.LineType.ChunkCombinedNan)
+        groups: list[list[np.ndarray]] = [[], [], []]
+        drawn: list[float] = []
+        levels = [float(x) for x in scene.levels if x != 0.0]
+        if scene.zero_contour:
+            levels.append(0.0)
+        for level in levels:
+            lines = [chunk for chunk in generator.lines(level)[0] if chunk is not None and len(chunk)]
+            if not lines:
+                continue
+            drawn.append(level)
+            # Negative levels of a signed quantity are dashed (a log density's are not "negative").
+            group = groups[2] if level == 0.0 else groups[1] if level < 0 and scene.signed else groups[0]
+            for chunk in lines:
+                group.append(chunk)
+                group.append(np.full((1, 2), np.nan))
+        for item, group in zip(self._contour_items, groups, strict=True):
+            if group:
+                points = np.concatenate(group)
+                item.setData(points[:, 0], points[:, 1])
+            else:
+                item.setData([], [])
+        self._contour_levels = tuple(drawn)
+        self.contours_drawn.emit()
+
+    def _clear_contours(self) -> None:
+        for item in self._contour_items:
+            item.setData([], [])
+        self._contour_levels = ()
+
+    # -- linking and cursor --------------------------------------------------------------
+
+    def link_axes(self, other: SliceView) -> None:
+        """Share both in-plane axes (pan and zoom) with ``other``.
+
+        Parameters
+        ----------
+        other : SliceView
+            The view to follow and be followed by.
+        """
+        if other is not self:
+            self._plot.setXLink(other._plot)
+            self._plot.setYLink(other._plot)
+
+    @Slot(float, float)
+    def show_cursor(self, u: float, v: float) -> None:
+        """Show a cursor driven from elsewhere (e.g. another view's :attr:`hovered`).
+
+        Parameters
+        ----------
+        u, v : float
+            In-plane point in the scene's length unit; NaN hides the cursor.
+
+        Notes
+        -----
+        Draws the crosshair and the read-out, but emits nothing.
+        """
+        if self._scene is None or not (math.isfinite(u) and math.isfinite(v)):
+            self._hide_cursor()
+            return
+        self._draw_cursor(u, v)
+
+    def _on_mouse_moved(self, position: QPointF) -> None:
+        if self._scene is None:
+            return
+        box = self._plot.getViewBox()
+        point = box.mapSceneToView(position)
+        u, v = point.x(), point.y()
+        if not box.sceneBoundingRect().contains(position) or self._pixel(u, v) is None:
+            self._leave()
+            return
+        self._draw_cursor(u, v)
+        self.hovered.emit(u, v)
+
+    def _leave(self) -> None:
+        if self._cursor_shown:
+            self._hide_cursor()
+            self.hovered.emit(math.nan, math.nan)
+
+    def _pixel(self, u: float, v: float) -> tuple[int, int] | None:
+        """(j, i) of the grid point nearest to (u, v), or None off the image."""
+        assert self._scene is not None
+        c = self._scene.coordinates
+        n = c.size
+        step = (c[-1] - c[0]) / (n - 1) if n > 1 else 1.0
+        i = round(float((u - c[0]) / step))
+        j = round(float((v - c[0]) / step))
+        if 0 <= i < n and 0 <= j < n:
+            return j, i
+        return None
+
+    def _draw_cursor(self, u: float, v: float) -> None:
+        assert self._scene is not None
+        scene = self._scene
+        self._v_line.setPos(u)
+        self._h_line.setPos(v)
+        self._v_line.show()
+        self._h_line.show()
+        self._cursor_shown = True
+        (u_name, unit), (v_name, _) = (split_label(a) for a in scene.axis_labels)
+        text = (f"<b>{html.escape(u_name)} = {format_number(u)}</b>, "
+                f"<b>{html.escape(v_name)} = {format_number(v)}</b> {html.escape(unit)}")
+        if self._point_of is not None:
+            x, y, z = self._point_of(u, v)
+            text += (f"&nbsp;&nbsp;(x, y, z) = ({format_number(x)}, {format_number(y)}, "
+                     f"{format_number(z)}) {html.escape(unit)}")
+        pixel = self._pixel(u, v)
+        symbol, value_unit = split_label(scene.value_label.removeprefix("log₁₀ "))
+        value = float(scene.values[pixel]) if pixel is not None else math.nan
+        text += (f"&nbsp;&nbsp;&nbsp;<b>{html.escape(symbol)} = {format_number(value)}</b> "
+                 f"{html.escape(value_unit)}")
+        self._readout.setText(text)
+
+    def _hide_cursor(self) -> None:
+        self._v_line.hide()
+        self._h_line.hide()
+        self._cursor_shown = False
+        hint = "Point at the image to read coordinates and the value." if self._scene is not None else ""
+        self._readout.setText(f'<span style="color:{MUTED_TEXT}">{hint}</span>')
+
+    # -- read-back (tests, exports of what is on screen) ----------------------------------
+
+    def image_data(self) -> np.ndarray:
+        """The array the image item shows (``scene.image`` units, ``[j, i]`` with j along v)."""
+        data = self._image.image
+        return np.empty((0, 0)) if data is None else np.asarray(data)
+
+    def image_rect(self) -> tuple[float, float, float, float]:
+        """(left, bottom, width, height) of the image in the scene's length unit."""
+        rect = self._image.mapRectToParent(self._image.boundingRect())
+        return rect.left(), rect.top(), rect.width(), rect.height()
+
+    def colour_levels(self) -> tuple[float, float]:
+        """The (low, high) image values mapped to the ends of the colour map."""
+        levels = self._image.getLevels()
+        return float(levels[0]), float(levels[1])
+
+    def contour_count(self) -> int:
+        """How many contour levels are drawn (the zero contour included)."""
+        return len(self._contour_levels)
+
+    def contour_levels(self) -> tuple[float, ...]:
+        """The drawn contour levels in ``scene.image`` units (0.0 for the zero contour)."""
+        return self._contour_levels
+
+    def cursor_position(self) -> tuple[float, float] | None:
+        """(u, v) of the shown cursor, or ``None`` when hidden."""
+        if not self._cursor_shown:
+            return None
+        return float(self._v_line.value()), float(self._h_line.value())
+
+    def readout_text(self) -> str:
+        """The read-out line below the image, as plain text."""
+        document = QTextDocument()
+        document.setHtml(self._readout.text())
+        return document.toPlainText()
+
+    def empty_message(self) -> str | None:
+        """The message shown instead of an image, or ``None`` when a scene is drawn."""
+        return self._message.text() if self._stack.currentIndex() == 1 else None

@@ -1,0 +1,167 @@
+"""The main window: typed input, models, comparison, export and sessions, checked on the data."""
+
+from __future__ import annotations
+
+import json
+
+import numpy as np
+import pytest
+from PySide6.QtCore import QSettings, Qt
+from PySide6.QtWidgets import QMessageBox
+
+from zeffir.state import CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
+from zeffir.ui._main_window import MainWindow
+
+
+@pytest.fixture
+def warnings(monkeypatch):
+    """Record message boxes instead of showing them (they would block)."""
+    shown: list[str] = []
+    monkeypatch.setattr(QMessageBox, "warning", lambda _parent, _title, text, *a: shown.append(text))
+    return shown
+
+
+@pytest.fixture
+def window(qtbot, tmp_path):
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+    state = ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"),
+                      slice=SliceSettings(resolution=64, extent=10.0))
+    win = MainWindow(state, synchronous=True, settings=settings)
+    qtbot.addWidget(win)
+    return win
+
+
+def _type_spec(qtbot, win, text):
+    edit = win.atom_bar.source_fields.spec_edit
+    edit.selectAll()
+    qtbot.keyClicks(edit, text)
+    qtbot.keyClick(edit, Qt.Key.Key_Return)
+
+
+def _table_column(win, column):
+    return [win.table.item(r, column).text().rstrip(" *") for r in range(win.table.rowCount())]
+
+
+def test_typing_a_spec_updates_table_and_curves(qtbot, window):
+    _type_spec(qtbot, window, "Fe3+")
+    assert window.model.state.left.spec == "Fe3+"
+    assert _table_column(window, 0) == ["1s", "2s", "2p", "3s", "3p", "3d"]
+    curves = window.radial_trio.views[0].curve_data()
+    assert any(label.startswith("3d") for label in curves)
+    x, y = curves["total"]
+    assert np.trapezoid(y, x) == pytest.approx(23, rel=1e-3)
+
+
+def test_invalid_spec_shows_the_reason_and_keeps_the_state(qtbot, window):
+    before = window.radial_trio.views[0].curve_data()
+    _type_spec(qtbot, window, "C 2p7")
+    assert window.atom_bar.source_fields.error_text() == "2p7: a p subshell holds at most 6 electrons"
+    assert window.model.state.left.spec == "Na"
+    after = window.radial_trio.views[0].curve_data()
+    assert before.keys() == after.keys()
+    for label in before:
+        np.testing.assert_array_equal(before[label][1], after[label][1])
+
+
+def test_switching_the_model_changes_zeta_and_curves(window):
+    zeta_before = _table_column(window, 2)
+    curve_before = window.radial_trio.views[0].curve_data()["total"][1]
+    window.model.update(left=Source("Na", "clementi"))
+    assert _table_column(window, 2) != zeta_before
+    assert not np.allclose(window.radial_trio.views[0].curve_data()["total"][1], curve_before)
+
+
+def test_selecting_a_table_row_selects_the_orbital(window):
+    window.table.selectRow(2)
+    assert window.model.state.orbital.subshell == "2p"
+
+
+def test_difference_view_equals_right_minus_left(window):
+    window.model.update(view="slice", compare=CompareSettings(True, Source("Na", "hydrogenic"), True))
+    left, right, diff = (v.image_data() for v in window.slice_trio.views)
+    np.testing.assert_allclose(diff, right - left, rtol=0, atol=1e-12 * np.abs(right).max())
+
+
+def test_radial_comparison_difference(window):
+    window.model.update(compare=CompareSettings(True, Source("Na", "hydrogenic"), True))
+    left, right, diff = (v.curve_data() for v in window.radial_trio.views)
+    np.testing.assert_allclose(diff["total"][1], right["total"][1] - left["total"][1])
+
+
+@pytest.mark.parametrize("suffix", [".png", ".svg", ".pdf"])
+def test_figure_export_writes_valid_files(window, tmp_path, suffix, warnings):
+    path = tmp_path / f"figure{suffix}"
+    assert window.export_figure(path, "single", 100)
+    head = path.read_bytes()[:8]
+    expected = {".png": b"\x89PNG", ".svg": b"<", ".pdf": b"%PDF"}[suffix]
+    assert head.lstrip().startswith(expected) or (suffix == ".svg" and b"<svg" in path.read_bytes())
+    assert not warnings
+
+
+def test_data_export_holds_what_is_shown(window, tmp_path):
+    window.model.update(view="slice")
+    path = tmp_path / "slice.npz"
+    window.export_data(path)
+    with np.load(path) as data:
+        np.testing.assert_array_equal(data["image"], window.slice_trio.views[0].image_data())
+    window.model.update(view="radial")
+    csv = tmp_path / "curves.csv"
+    window.export_data(csv)
+    assert csv.read_text().startswith("#")
+
+
+def test_export_to_an_unwritable_place_warns_and_writes_nothing(window, tmp_path, warnings):
+    window.export_figure(tmp_path / "missing" / "f.png", "single", 100)
+    assert warnings and "missing" in warnings[0]
+    assert not (tmp_path / "missing").exists()
+
+
+def test_session_round_trip_restores_the_state(qtbot, window, tmp_path):
+    window.model.update(left=Source("Fe", "clementi"), orbital=OrbitalChoice("3d", "real", -2),
+                        view="slice")
+    path = tmp_path / "iron.zeffir"
+    assert window.save_session_as(path)
+    other = MainWindow(ViewState(), synchronous=True,
+                       settings=QSettings(str(tmp_path / "o.ini"), QSettings.Format.IniFormat))
+    qtbot.addWidget(other)
+    assert other.open_session(path)
+    assert other.model.state == window.model.state
+    np.testing.assert_array_equal(other.slice_trio.views[0].image_data(),
+                                  window.slice_trio.views[0].image_data())
+    assert str(path) in other._recent()
+
+
+@pytest.mark.parametrize("content", ["{not json", json.dumps({"kind": "other"}),
+                                     json.dumps({"kind": "zeffir-session", "version": 99, "state": {}})])
+def test_bad_session_is_rejected_and_nothing_changes(window, tmp_path, warnings, content):
+    before = window.model.state
+    path = tmp_path / "bad.zeffir"
+    path.write_text(content)
+    assert not window.open_session(path)
+    assert warnings
+    assert window.model.state == before
+
+
+def test_worker_thread_delivers_only_the_newest_request(qtbot, tmp_path):
+    settings = QSettings(str(tmp_path / "s.ini"), QSettings.Format.IniFormat)
+    win = MainWindow(ViewState(left=Source("Ne")), synchronous=False, settings=settings)
+    qtbot.addWidget(win)
+    for spec in ("Ar", "Kr", "Xe"):
+        win.model.update(left=Source(spec))
+    def settled() -> None:
+        assert not win.progress.isVisible()
+        labels = win.radial_trio.views[0].curve_data()
+        assert any(label.startswith("5p") for label in labels)
+    qtbot.waitUntil(settled, timeout=10000)
+    win.worker.shutdown()
+
+
+def test_demo_session_opens(qtbot, tmp_path):
+    from zeffir.ui._app import demo_state
+
+    state = demo_state()
+    win = MainWindow(state, synchronous=True,
+                     settings=QSettings(str(tmp_path / "d.ini"), QSettings.Format.IniFormat))
+    qtbot.addWidget(win)
+    assert win.model.state.left.spec == "Na"
+    assert len(win.radial_trio.views[0].curve_data()) > 0
