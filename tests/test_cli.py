@@ -81,7 +81,7 @@ def test_unknown_model_exits_2():
 
 
 def test_demo_runs_and_compares_three_models(capsys):
-    assert main([]) == 0
+    assert main(["demo"]) == 0
     out = capsys.readouterr().out
     for model in ("hydrogenic", "slater", "clementi"):
         assert f"model: {model}" in out

@@ -13,6 +13,7 @@ from __future__ import annotations
 import argparse
 import json
 import math
+import os
 import sys
 from collections.abc import Sequence
 from typing import TYPE_CHECKING, Any
@@ -33,10 +34,16 @@ def _parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="zeffir",
         description="Orbitals, densities and figures for many-electron atoms. "
-        "With no command, shows the built-in demo.",
+        "With no command, opens the window on the built-in demo (or on --session FILE).",
     )
     parser.add_argument("--version", action="version", version=f"zeffir {__version__}")
+    parser.add_argument("--session", metavar="FILE",
+                        help="open this session file (.zeffir) in the window")
     commands = parser.add_subparsers(dest="command", metavar="COMMAND")
+    commands.add_parser(
+        "demo", help="print the demo's subshell tables as text (no window)",
+        description="Print the built-in demo's tables: sodium under three models.",
+    )
     table = commands.add_parser(
         "table",
         help="per-subshell table: occupancy, ζ, Z_eff, n*, <r>, r_max, energy",
@@ -209,6 +216,23 @@ def _demo() -> int:
     print()
     print("Model estimates: non-relativistic, no electron correlation, point nucleus.")
     return 0
+
+
+def _has_display() -> bool:
+    """False on a Linux machine with no display server and no Qt platform chosen."""
+    if not sys.platform.startswith("linux") or os.environ.get("QT_QPA_PLATFORM"):
+        return True
+    return bool(os.environ.get("DISPLAY") or os.environ.get("WAYLAND_DISPLAY"))
+
+
+def _window(session: str | None) -> int:
+    if not _has_display():
+        print("zeffir: no display found, so the window cannot open; showing the demo as text "
+              "(use 'zeffir table' and 'zeffir figure' without a display).", file=sys.stderr)
+        return _demo()
+    from zeffir.ui import run_window
+
+    return run_window(session=session)
 
 
 class _InputError(Exception):
@@ -392,6 +416,8 @@ def main(argv: Sequence[str] | None = None) -> int:
     args = _parser().parse_args(argv)
     try:
         if args.command is None:
+            return _window(args.session)
+        if args.command == "demo":
             return _demo()
         if args.command == "table":
             spec = " ".join(args.spec)

@@ -337,7 +337,8 @@ def _draw_slice(ax: Axes, scene: SliceScene) -> AxesImage:
                 ax.contour(u, u, scene.image, levels=inside, colors="white", alpha=0.55,
                            linewidths=0.4, linestyles="solid")
     if scene.zero_contour and finite.size and finite.min() < 0.0 < finite.max():
-        ax.contour(u, u, scene.image, levels=[0.0], colors="black", linewidths=0.7, linestyles="solid")
+        ax.contour(u, u, scene.zero_contour_field(), levels=[0.0], colors="black", linewidths=0.7,
+                   linestyles="solid")
     ax.set_xlabel(scene.axis_labels[0])
     ax.set_ylabel(scene.axis_labels[1])
     # A full frame; ticks outside, where the image cannot hide them.

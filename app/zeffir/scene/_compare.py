@@ -74,7 +74,7 @@ def compare_slices(state: ViewState) -> SliceComparison:
     left = replace(left, colour_range=(low, high), levels=levels)
     right = replace(right, colour_range=(low, high), levels=levels)
     delta = right.values - left.values
-    d_range = colour_scale(delta, signed=True, log_scale=False)
+    d_range = colour_scale(delta, signed=True, log_scale=False, robust=not state.slice.full_range)
     difference = replace(
         left,
         title=f"({right.spec}, {right.model}) − ({left.spec}, {left.model})",

@@ -56,6 +56,15 @@ class SliceScene:
     levels: tuple[float, ...]
     zero_contour: bool
 
+    def zero_contour_field(self) -> FloatArray:
+        """``image`` with exact zeros masked (NaN), for tracing nodal lines.
+
+        Beyond a radial function's tabulated range, or where an exponential
+        underflows, ψ is exactly 0; contouring level 0 there would draw lines that
+        are not nodes. Real nodes are where ψ changes sign, which this keeps.
+        """
+        return np.where(self.values == 0.0, np.nan, self.image)
+
 
 def plane_of(settings: SliceSettings) -> Plane:
     """The core's Plane for the slice settings (all lengths in bohr)."""
@@ -78,18 +87,35 @@ def orbital_name(choice: OrbitalChoice, l: int) -> str:
     return f"{choice.subshell}, m = {choice.m:+d}" if choice.m else f"{choice.subshell}, m = 0"
 
 
-def colour_scale(image: FloatArray, signed: bool, log_scale: bool) -> tuple[float, float]:
-    """Default colour limits: symmetric about 0 for signed data; top decades for log."""
+#: Share of pixels allowed to saturate on a robust colour scale.
+ROBUST_SATURATION = 0.005
+
+
+def colour_scale(image: FloatArray, signed: bool, log_scale: bool,
+                 robust: bool = False) -> tuple[float, float]:
+    """Default colour limits: symmetric about 0 for signed data; top decades for log.
+
+    With ``robust``, a linear scale ends at the 99.5th percentile of |value| (taken
+    on every 4th pixel each way) rather than at the maximum, so that a nuclear cusp
+    does not wash out the valence region; at most about 0.5 % of pixels saturate.
+    """
     finite = image[np.isfinite(image)]
     if finite.size == 0:
         return (0.0, 1.0)
+    magnitude = np.abs(finite) if signed else finite
+    top = float(np.max(magnitude))
+    if robust and not log_scale:
+        sample = np.abs(image[::4, ::4]) if signed else image[::4, ::4]
+        sample = sample[np.isfinite(sample)]
+        if sample.size:
+            clipped = float(np.quantile(sample, 1.0 - ROBUST_SATURATION))
+            top = clipped if clipped > 0 else top
     if signed:
-        top = float(np.max(np.abs(finite))) or 1.0
+        top = top or 1.0
         return (-top, top)
-    high = float(np.max(finite))
     if log_scale:
-        return (high - LOG_DECADES, high)
-    return (0.0, high or 1.0)
+        return (top - LOG_DECADES, top)
+    return (0.0, top or 1.0)
 
 
 def contour_levels(low: float, high: float, count: int, signed: bool) -> tuple[float, ...]:
@@ -130,6 +156,8 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
         values = density_on_plane(orbitals, plane)
         what = "all electrons"
     values = values * length_factor(length_unit, quantity.length_power)
+    if settings.quantity != "density" and not np.any(values):
+        what += " — zero everywhere on this plane (a nodal plane)"
     signed = settings.quantity == "psi"
     log_scale = settings.log_scale and not signed
     if log_scale:
@@ -137,7 +165,7 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
         image = np.log10(np.maximum(values, floor))
     else:
         image = values
-    low, high = colour_scale(image, signed, log_scale)
+    low, high = colour_scale(image, signed, log_scale, robust=not settings.full_range)
     unit = length_symbol(length_unit)
     scale = length_factor(length_unit, 1.0)
     plane_text = _plane_text(settings, unit, scale)

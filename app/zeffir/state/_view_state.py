@@ -100,6 +100,7 @@ class SliceSettings:
     quantity: SliceQuantity = "psi"
     log_scale: bool = False
     contours: int = 8
+    full_range: bool = False  # colour scale to the extreme values (else robust, see scene)
 
 
 @dataclass(frozen=True)

@@ -162,18 +162,18 @@ class AtomBar(QWidget):
         l = "spdfghi".index(orbital.subshell[-1])
         self.orbital_box.clear()
         for label, m in real_labels(l):
-            self.orbital_box.addItem(f"{orbital.subshell[:-1]}{label}", ("real", m))
+            self.orbital_box.addItem(f"{orbital.subshell[:-1]}{label}", f"real:{m}")
         if l > 0:
             for m in range(-l, l + 1):
-                self.orbital_box.addItem(f"m = {m:+d}" if m else "m = 0", ("complex", m))
-        index = self.orbital_box.findData((orbital.kind, orbital.m))
+                self.orbital_box.addItem(f"m = {m:+d}" if m else "m = 0", f"complex:{m}")
+        index = self.orbital_box.findData(f"{orbital.kind}:{orbital.m}")
         self.orbital_box.setCurrentIndex(max(index, 0))
         for box in (self.subshell_box, self.orbital_box):
             box.blockSignals(False)
 
     def _emit_orbital(self, reset_m: bool) -> None:
         subshell = str(self.subshell_box.currentData())
-        kind, m = self.orbital_box.currentData() or ("real", 0)
+        kind, _, m = str(self.orbital_box.currentData() or "real:0").partition(":")
         if reset_m:
             kind, m = "real", 0
         self.orbital_edited.emit(OrbitalChoice(subshell, kind, int(m)))

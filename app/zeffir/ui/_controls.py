@@ -29,8 +29,15 @@ _SLICE_CHOICES = (("psi", "Orbital ψ (signed)"), ("psi2", "Orbital density |ψ|
                   ("density", "Total density ρ"))
 
 
+def _shrinkable(box: QComboBox, characters: int = 14) -> QComboBox:
+    """Let a combo box be narrower than its longest item (the panel has a fixed width)."""
+    box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+    box.setMinimumContentsLength(characters)
+    return box
+
+
 def _combo(choices: tuple[tuple[str, str], ...]) -> QComboBox:
-    box = QComboBox()
+    box = _shrinkable(QComboBox())
     for key, text in choices:
         box.addItem(text, key)
         box.setItemData(box.count() - 1, QUANTITIES[key].formula if key in QUANTITIES else text, 3)
@@ -83,7 +90,7 @@ class ViewControls(QWidget):
     def _build_units(self) -> QGroupBox:
         box = QGroupBox("Units")
         row = QHBoxLayout(box)
-        self.units = QComboBox()
+        self.units = _shrinkable(QComboBox())
         self.units.addItem("atomic (bohr, hartree)", "bohr")
         self.units.addItem("Å and eV", "angstrom")
         self.units.setToolTip("Display units; all computation is in atomic units")
@@ -113,7 +120,7 @@ class ViewControls(QWidget):
         box = QGroupBox("Slice")
         form = QFormLayout(box)
         self.slice_quantity = _combo(_SLICE_CHOICES)
-        self.plane = QComboBox()
+        self.plane = _shrinkable(QComboBox())
         for key, text in (("xy", "xy (z = offset)"), ("xz", "xz (y = offset)"),
                           ("yz", "yz (x = offset)"), ("custom", "normal vector…")):
             self.plane.addItem(text, key)
@@ -135,6 +142,12 @@ class ViewControls(QWidget):
         self.resolution.setToolTip(f"Points per side (up to {MAX_VIEW_RESOLUTION})")
         self.log_scale = QCheckBox("Logarithmic colour scale")
         self.log_scale.setToolTip("For |ψ|² and ρ: six decades below the maximum")
+        self.full_range = QCheckBox("Colour scale to the extremes")
+        self.full_range.setToolTip(
+            "Off: the linear scale ends at the 99.5th percentile of |value|, so a nuclear cusp "
+            "does not wash out the outer region (saturated pixels show the end colour).\n"
+            "On: the scale spans the full range of values."
+        )
         self.contours = QSpinBox()
         self.contours.setRange(0, 40)
         self.contours.setToolTip("Number of contour lines (nodal lines of ψ are always drawn)")
@@ -146,9 +159,11 @@ class ViewControls(QWidget):
         form.addRow("Resolution", self.resolution)
         form.addRow("Contours", self.contours)
         form.addRow(self.log_scale)
+        form.addRow(self.full_range)
         self.slice_quantity.activated.connect(lambda _i: self._emit_slice())
         self.plane.activated.connect(lambda _i: self._emit_slice())
         self.log_scale.toggled.connect(lambda _b: self._emit_slice())
+        self.full_range.toggled.connect(lambda _b: self._emit_slice())
         for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours):
             spin.valueChanged.connect(lambda _v: self._slice_timer.start())
         return box
@@ -158,7 +173,9 @@ class ViewControls(QWidget):
         layout = QVBoxLayout(box)
         self.compare_on = QCheckBox("Compare with a second model or atom")
         self.compare_source = SourceFields("Versus")
-        self.compare_source.spec_edit.setMinimumWidth(120)
+        self.compare_source.spec_edit.setMinimumWidth(80)
+        _shrinkable(self.compare_source.model_box, 10)
+        self.compare_source.message.setWordWrap(True)
         self.show_difference = QCheckBox("Show the difference (right − left)")
         layout.addWidget(self.compare_on)
         layout.addWidget(self.compare_source)
@@ -176,6 +193,7 @@ class ViewControls(QWidget):
             self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
             self.offset, self.extent, self.resolution, self.log_scale, self.contours,
+            self.full_range,
             self.compare_on, self.show_difference,
         ]
         for widget in widgets:
@@ -201,6 +219,7 @@ class ViewControls(QWidget):
         self.contours.setValue(s.contours)
         self.log_scale.setChecked(s.log_scale)
         self.log_scale.setEnabled(s.quantity != "psi")
+        self.full_range.setChecked(s.full_range)
         c = state.compare
         self.compare_on.setChecked(c.enabled)
         self.show_difference.setChecked(c.show_difference)
@@ -237,6 +256,7 @@ class ViewControls(QWidget):
             resolution=self.resolution.value(),
             contours=self.contours.value(),
             log_scale=self.log_scale.isChecked(),
+            full_range=self.full_range.isChecked(),
         ))
 
     def _emit_compare(self) -> None:

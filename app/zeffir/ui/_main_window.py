@@ -14,7 +14,6 @@ from PySide6.QtWidgets import (
     QFileDialog,
     QFormLayout,
     QHBoxLayout,
-    QLabel,
     QMainWindow,
     QMessageBox,
     QProgressBar,
@@ -62,23 +61,20 @@ def _table_job(source: Source) -> Any:
 
 
 class _Trio(QWidget):
-    """Left, right and difference views in a row; only the left one outside comparisons."""
+    """Left, right and difference views in a row; only the left one outside comparisons.
+
+    Each view titles itself from its scene (spec, model; "right − left" for the
+    difference), so the row needs no captions of its own.
+    """
 
     def __init__(self, factory: type[RadialView] | type[SliceView]) -> None:
         super().__init__()
         self.views = [factory(), factory(), factory()]
-        self.captions = [QLabel(), QLabel(), QLabel()]
         layout = QHBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
-        for caption, view in zip(self.captions, self.views, strict=True):
-            column = QVBoxLayout()
-            caption.setAlignment(Qt.AlignmentFlag.AlignCenter)
-            caption.setStyleSheet("font-weight: 600; color: #333;")
-            column.addWidget(caption)
-            column.addWidget(view, 1)
-            holder = QWidget()
-            holder.setLayout(column)
-            layout.addWidget(holder, 1)
+        layout.setSpacing(2)
+        for view in self.views:
+            layout.addWidget(view, 1)
         self.views[1].link_axes(self.views[0])  # type: ignore[arg-type]
         if factory is SliceView:
             self.views[2].link_axes(self.views[0])  # type: ignore[arg-type]
@@ -86,10 +82,8 @@ class _Trio(QWidget):
             self.views[2].link_axes(self.views[0], y=False)  # type: ignore[call-arg]
 
     def set_columns(self, count: int) -> None:
-        for i, (caption, view) in enumerate(zip(self.captions, self.views, strict=True)):
-            visible = i < count
-            view.parentWidget().setVisible(visible)
-            caption.setVisible(count > 1)
+        for i, view in enumerate(self.views):
+            view.setVisible(i < count)
 
 
 class ExportOptions(QDialog):
@@ -151,15 +145,15 @@ class MainWindow(QMainWindow):
     def _build_widgets(self) -> None:
         self.atom_bar = AtomBar()
         self.table = SubshellTable()
-        self.table.setMinimumHeight(150)
+        self.table.setMinimumHeight(110)
         self.controls = ViewControls()
         scroll = QScrollArea()
         scroll.setWidget(self.controls)
         scroll.setWidgetResizable(True)
-        side = QSplitter(Qt.Orientation.Vertical)
-        side.addWidget(self.table)
-        side.addWidget(scroll)
-        side.setStretchFactor(1, 1)
+        scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
+        panel_width = self.controls.minimumSizeHint().width() + 24  # room for the scroll bar
+        scroll.setMinimumWidth(panel_width)
+        scroll.setMaximumWidth(panel_width + 60)
         self.radial_trio = _Trio(RadialView)
         self.slice_trio = _Trio(SliceView)
         self.tabs = QTabWidget()
@@ -167,11 +161,16 @@ class MainWindow(QMainWindow):
         self.tabs.addTab(self.slice_trio, "Slice")
         self.tabs.setTabToolTip(0, "Radial functions, distributions and cumulative charge")
         self.tabs.setTabToolTip(1, "Orbitals and densities on a plane through the atom")
+        views_and_table = QSplitter(Qt.Orientation.Vertical)
+        views_and_table.addWidget(self.tabs)
+        views_and_table.addWidget(self.table)
+        views_and_table.setStretchFactor(0, 1)
+        views_and_table.setSizes([760, 170])
         body = QSplitter(Qt.Orientation.Horizontal)
-        body.addWidget(side)
-        body.addWidget(self.tabs)
+        body.addWidget(scroll)
+        body.addWidget(views_and_table)
         body.setStretchFactor(1, 1)
-        body.setSizes([430, 1170])
+        body.setSizes([panel_width, 1600 - panel_width])
         central = QWidget()
         layout = QVBoxLayout(central)
         layout.setContentsMargins(4, 4, 4, 4)
@@ -298,11 +297,8 @@ class MainWindow(QMainWindow):
         trio = self.radial_trio if key == "radial" else self.slice_trio
         parts = ([result.left, result.right, result.difference]
                  if hasattr(result, "difference") else [result])
-        for view, caption, scene in zip(trio.views, trio.captions, parts, strict=False):
+        for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
-            caption.setText(f"{scene.spec} — {scene.model}")
-        if len(parts) == 3:
-            trio.captions[2].setText("difference: right − left")
         self.statusBar().clearMessage()
 
     @Slot(str, str)

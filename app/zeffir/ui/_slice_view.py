@@ -147,7 +147,7 @@ class SliceView(QWidget):
 
         self._graphics.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._graphics.viewport().installEventFilter(self)
-        self.setMinimumSize(420, 380)
+        self.setMinimumSize(360, 360)
         self._show_message()
 
     def _style_colour_bar(self) -> None:
@@ -339,8 +339,15 @@ class SliceView(QWidget):
         levels = [float(x) for x in scene.levels if x != 0.0]
         if scene.zero_contour:
             levels.append(0.0)
+        nodal = None
+        if scene.zero_contour:
+            # Nodal lines from the field with exact zeros masked (see zero_contour_field).
+            field = np.ma.masked_invalid(scene.zero_contour_field()[::step, ::step])
+            nodal = contourpy.contour_generator(coordinates, coordinates, field,
+                                                line_type=contourpy.LineType.ChunkCombinedNan)
         for level in levels:
-            lines = [chunk for chunk in generator.lines(level)[0] if chunk is not None and len(chunk)]
+            source = nodal if level == 0.0 and nodal is not None else generator
+            lines = [chunk for chunk in source.lines(level)[0] if chunk is not None and len(chunk)]
             if not lines:
                 continue
             drawn.append(level)

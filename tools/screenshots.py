@@ -1,0 +1,60 @@
+"""Render the window offscreen at 1600×1000 and save a PNG of each view.
+
+Usage: ``python tools/screenshots.py OUT_DIR``. Used to look at the window as a
+practitioner would before a change lands (no display needed).
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+from dataclasses import replace
+from pathlib import Path
+
+os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+
+
+def main(out: Path) -> int:
+    import pyqtgraph as pg
+    from PySide6.QtCore import QSettings
+    from PySide6.QtWidgets import QApplication
+
+    from zeffir.state import CompareSettings, OrbitalChoice, Source
+    from zeffir.ui import demo_state
+    from zeffir.ui._main_window import MainWindow
+
+    pg.setConfigOptions(imageAxisOrder="row-major", antialias=True)
+    app = QApplication.instance() or QApplication([])
+    out.mkdir(parents=True, exist_ok=True)
+    settings = QSettings(str(out / "settings.ini"), QSettings.Format.IniFormat)
+    window = MainWindow(demo_state(), synchronous=True, settings=settings)  # type: ignore[arg-type]
+    window.resize(1600, 1000)
+    window.show()
+
+    def shot(name: str) -> None:
+        for _ in range(5):
+            app.processEvents()
+        window.grab().save(str(out / f"{name}.png"))
+        print(out / f"{name}.png")
+
+    model = window.model
+    shot("1-demo-radial-side-by-side")
+    model.update(compare=replace(model.state.compare, enabled=False))
+    shot("2-radial")
+    model.update(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d", "real", -2), view="slice")
+    model.update(slice=replace(model.state.slice, plane="xy", extent=4.0, resolution=512))
+    shot("3-slice-psi")
+    model.update(slice=replace(model.state.slice, quantity="density", log_scale=True))
+    shot("4-slice-density-log")
+    model.update(left=Source("Na", "hydrogenic"), orbital=OrbitalChoice("3s"),
+                 slice=replace(model.state.slice, quantity="psi", log_scale=False, extent=14.0),
+                 compare=CompareSettings(True, Source("Na", "clementi"), True))
+    shot("5-slice-side-by-side")
+    model.update(view="radial", length_unit="angstrom")
+    shot("6-radial-side-by-side-angstrom")
+    window.worker.shutdown()
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main(Path(sys.argv[1] if len(sys.argv) > 1 else "screenshots")))
