@@ -7,6 +7,7 @@ or data file holds exactly what is on screen.
 from zeffir.scene._build import orbitals_for
 from zeffir.scene._colours import DIVERGING, SEQUENTIAL, colour_stops
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
+from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
 from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length_symbol, unit_text
 from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import (
@@ -20,10 +21,12 @@ from zeffir.scene._slice import (
 )
 
 __all__ = [
+    "CONTOUR_POINTS",
     "DIVERGING",
     "LOG_DECADES",
     "QUANTITIES",
     "SEQUENTIAL",
+    "ContourPaths",
     "Curve",
     "Marker",
     "Quantity",
@@ -44,5 +47,6 @@ __all__ = [
     "radial_range",
     "radial_scene",
     "slice_scene",
+    "trace_contours",
     "unit_text",
 ]

@@ -2,13 +2,14 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 import numpy as np
 
 from zeffir.core import Plane, density_on_plane, orbital_density_on_plane, orbital_on_plane
 from zeffir.core.orbitals import FloatArray, real_label
 from zeffir.scene._build import orbitals_for
+from zeffir.scene._contours import ContourPaths, trace_contours
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
 from zeffir.state import OrbitalChoice, SliceSettings, Source
 
@@ -55,6 +56,13 @@ class SliceScene:
     colour_range: tuple[float, float]
     levels: tuple[float, ...]
     zero_contour: bool
+    contours: ContourPaths | None = None
+
+    def with_contours(self) -> SliceScene:
+        """This scene with its contour lines traced (see :func:`trace_contours`)."""
+        paths = trace_contours(self.image, self.coordinates, self.levels, self.signed,
+                               self.zero_contour_field() if self.zero_contour else None)
+        return replace(self, contours=paths)
 
     def zero_contour_field(self) -> FloatArray:
         """``image`` with exact zeros masked (NaN), for tracing nodal lines.
@@ -99,11 +107,14 @@ def colour_scale(image: FloatArray, signed: bool, log_scale: bool,
     on every 4th pixel each way) rather than at the maximum, so that a nuclear cusp
     does not wash out the valence region; at most about 0.5 % of pixels saturate.
     """
-    finite = image[np.isfinite(image)]
-    if finite.size == 0:
-        return (0.0, 1.0)
-    magnitude = np.abs(finite) if signed else finite
-    top = float(np.max(magnitude))
+    # Two reductions, no temporary arrays: this runs on every re-render.
+    high, low = float(np.nanmax(image)), float(np.nanmin(image))
+    if not (np.isfinite(high) and np.isfinite(low)):
+        finite = image[np.isfinite(image)]
+        if finite.size == 0:
+            return (0.0, 1.0)
+        high, low = float(finite.max()), float(finite.min())
+    top = max(high, -low) if signed else high
     if robust and not log_scale:
         sample = np.abs(image[::4, ::4]) if signed else image[::4, ::4]
         sample = sample[np.isfinite(sample)]
@@ -155,7 +166,9 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
     else:
         values = density_on_plane(orbitals, plane)
         what = "all electrons"
-    values = values * length_factor(length_unit, quantity.length_power)
+    factor = length_factor(length_unit, quantity.length_power)
+    if factor != 1.0:
+        values = values * factor
     if settings.quantity != "density" and not np.any(values):
         what += " — zero everywhere on this plane (a nodal plane)"
     signed = settings.quantity == "psi"

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import os
 import sys
 from collections.abc import Sequence
 
@@ -35,4 +36,12 @@ def run_window(argv: Sequence[str] | None = None, session: str | None = None) ->
         window.open_session(session)
     window.resize(1600, 1000)
     window.show()
+    if os.environ.get("ZEFFIR_EXIT_AFTER_SHOW"):  # used by the cold-start benchmark
+        from PySide6.QtCore import QTimer
+
+        def shown() -> None:
+            print("window-shown", flush=True)
+            window.close()
+
+        QTimer.singleShot(0, shown)
     return int(app.exec())

@@ -152,6 +152,9 @@ class AtomBar(QWidget):
     def show_state(self, source: Source, orbital: OrbitalChoice) -> None:
         """Display a source and orbital choice without emitting."""
         self.source_fields.show_source(source)
+        if (source.spec, orbital) == getattr(self, "_shown", None):
+            return
+        self._shown = (source.spec, orbital)
         configuration = parse_spec(source.spec)
         for box in (self.subshell_box, self.orbital_box):
             box.blockSignals(True)

@@ -2,10 +2,11 @@
 
 from __future__ import annotations
 
+from dataclasses import replace
 from pathlib import Path
 from typing import Any
 
-from PySide6.QtCore import QSettings, Qt, Slot
+from PySide6.QtCore import QSettings, Qt, QTimer, Slot
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
     QComboBox,
@@ -42,6 +43,8 @@ __all__ = ["MainWindow"]
 
 SESSION_FILTER = "Zeffir sessions (*.zeffir)"
 MAX_RECENT = 8
+#: Contour lines are traced this long after a new slice image (so the image paints first).
+CONTOUR_DELAY_MS = 25
 
 
 def _radial_job(state: ViewState) -> Any:
@@ -54,6 +57,11 @@ def _slice_job(state: ViewState) -> Any:
     if state.compare.enabled:
         return compare_slices(state)
     return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
+
+
+def _contour_job(scenes: list[Any]) -> Any:
+    # Traced in the worker after the image is on screen; the views only draw the lines.
+    return [scene.with_contours() for scene in scenes]
 
 
 def _table_job(source: Source) -> Any:
@@ -156,6 +164,8 @@ class MainWindow(QMainWindow):
         scroll.setMaximumWidth(panel_width + 60)
         self.radial_trio = _Trio(RadialView)
         self.slice_trio = _Trio(SliceView)
+        for view in self.slice_trio.views:
+            view.use_external_contours(True)
         self.tabs = QTabWidget()
         self.tabs.addTab(self.radial_trio, "Radial")
         self.tabs.addTab(self.slice_trio, "Slice")
@@ -297,8 +307,16 @@ class MainWindow(QMainWindow):
         trio = self.radial_trio if key == "radial" else self.slice_trio
         parts = ([result.left, result.right, result.difference]
                  if hasattr(result, "difference") else [result])
+        if key == "slice-contours":
+            for view, scene in zip(self.slice_trio.views, result, strict=False):
+                view.show_contours(scene)
+            return
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
+        if key == "slice":
+            # Trace after the image has been painted, so the two never compete.
+            QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts: self.worker.request(
+                "slice-contours", lambda: _contour_job(p)))
         self.statusBar().clearMessage()
 
     @Slot(str, str)
@@ -321,8 +339,6 @@ class MainWindow(QMainWindow):
 
     def _toggle_compare(self) -> None:
         compare = self.model.state.compare
-        from dataclasses import replace
-
         self.model.update(compare=replace(compare, enabled=not compare.enabled))
 
     # -- sessions -------------------------------------------------------------------

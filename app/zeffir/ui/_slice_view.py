@@ -72,6 +72,7 @@ class SliceView(QWidget):
         self._scene: SliceScene | None = None
         self._point_of: PointOf | None = None
         self._contours_enabled = True
+        self._external_contours = False
         self._contour_levels: tuple[float, ...] = ()
         self._extent: tuple[float, float, int] | None = None
         self._signed: bool | None = None
@@ -204,7 +205,12 @@ class SliceView(QWidget):
             self._extent = extent
             self._plot.getViewBox().setRange(rect, padding=0.0)
         self._set_labels(scene)
-        self._schedule_contours()
+        if self._external_contours and scene.contours is None:
+            self._contour_timer.stop()
+            self._contours_pending = False
+            self._clear_contours()  # the owner traces them off the GUI thread: show_contours
+        else:
+            self._schedule_contours()
         if self._cursor_shown:
             self._draw_cursor(self._v_line.value(), self._h_line.value())
 
@@ -287,6 +293,23 @@ class SliceView(QWidget):
 
     # -- contours ------------------------------------------------------------------------
 
+    def use_external_contours(self, external: bool) -> None:
+        """Let the owner trace contours (off the GUI thread) and hand them to :meth:`show_contours`.
+
+        Scenes without traced contours then show none until ``show_contours`` is called.
+        """
+        self._external_contours = bool(external)
+
+    def show_contours(self, scene: SliceScene) -> None:
+        """Draw the traced contours of ``scene`` if it is the scene on screen (same image)."""
+        current = self._scene
+        if current is None or scene.contours is None or scene.image is not current.image:
+            return
+        if not self._contours_enabled:
+            return
+        self._scene = scene
+        self._draw_contours()
+
     def set_contours_enabled(self, enabled: bool) -> None:
         """Draw contour lines or skip them entirely.
 
@@ -324,6 +347,14 @@ class SliceView(QWidget):
         self._contours_pending = False
         scene = self._scene
         if scene is None or not self._contours_enabled:
+            return
+        if scene.contours is not None:  # traced with the scene, off the GUI thread
+            paths = scene.contours
+            for item, points in zip(self._contour_items,
+                                    (paths.positive, paths.negative, paths.zero), strict=True):
+                item.setData(points[:, 0], points[:, 1]) if len(points) else item.setData([], [])
+            self._contour_levels = paths.levels
+            self.contours_drawn.emit()
             return
         import contourpy  # lazily: only needed once a slice is shown
 
