@@ -165,3 +165,27 @@ def test_demo_session_opens(qtbot, tmp_path):
     qtbot.addWidget(win)
     assert win.model.state.left.spec == "Na"
     assert len(win.radial_trio.views[0].curve_data()) > 0
+
+
+def test_table_copies_as_tab_separated_text(window):
+    text = window.table.as_text().splitlines()
+    assert text[0].split("\t")[0] == "Subshell" and len(text) == 5
+    assert text[4].split("\t")[:2] == ["3s", "1"]
+    window.table.copy_to_clipboard()
+    from PySide6.QtGui import QGuiApplication
+
+    assert QGuiApplication.clipboard().text() == window.table.as_text()
+
+
+def test_slice_readout_maps_plane_coordinates_to_xyz(window):
+    window.model.update(view="slice", slice=SliceSettings(plane="xz", offset=0.5, resolution=64))
+    view = window.slice_trio.views[0]
+    assert view._point_of is not None
+    assert view._point_of(1.0, 2.0) == pytest.approx((1.0, 0.5, 2.0))  # the xz plane at y = 0.5
+
+
+def test_cancel_hides_the_progress_indicator(window):
+    window._on_busy(True)
+    assert not window.progress.isHidden()
+    window.cancel_button.click()
+    assert window.progress.isHidden()

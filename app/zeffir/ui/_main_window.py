@@ -28,7 +28,15 @@ from PySide6.QtWidgets import (
 )
 
 from zeffir.core import subshell_table
-from zeffir.scene import compare_radial, compare_slices, orbitals_for, radial_scene, slice_scene
+from zeffir.scene import (
+    compare_radial,
+    compare_slices,
+    length_factor,
+    orbitals_for,
+    plane_of,
+    radial_scene,
+    slice_scene,
+)
 from zeffir.state import OrbitalChoice, Source, ViewState
 from zeffir.ui._about import show_about
 from zeffir.ui._atom_bar import AtomBar
@@ -314,6 +322,9 @@ class MainWindow(QMainWindow):
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
         if key == "slice":
+            point_of = _point_mapper(state)
+            for view in self.slice_trio.views:
+                view.set_point_of(point_of)
             # Trace after the image has been painted, so the two never compete.
             QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts: self.worker.request(
                 "slice-contours", lambda: _contour_job(p)))
@@ -468,6 +479,19 @@ class MainWindow(QMainWindow):
         self.settings.setValue("geometry", self.saveGeometry())
         self.worker.shutdown()
         super().closeEvent(event)
+
+
+def _point_mapper(state: ViewState) -> Any:
+    """(u, v) in display units → (x, y, z) in display units, for the slice read-out."""
+    normal, e1, e2 = plane_of(state.slice).basis()
+    offset = state.slice.offset * length_factor(state.length_unit, 1.0)
+    origin = offset * normal
+
+    def point_of(u: float, v: float) -> tuple[float, float, float]:
+        x, y, z = origin + u * e1 + v * e2
+        return float(x), float(y), float(z)
+
+    return point_of
 
 
 def _radial_inputs(state: ViewState) -> tuple[object, ...]:

@@ -114,3 +114,10 @@ def test_numpy_path_is_used_without_numba(monkeypatch):
     plane = Plane.named("xy", extent=3.0, resolution=256)
     np.testing.assert_allclose(orbital_on_plane(orbital, plane, 1),
                                orbital_on_plane_direct(orbital, plane, 1), rtol=0, atol=1e-13)
+
+
+@pytest.mark.parametrize(("name", "axis"), [("xy", 2), ("xz", 1), ("yz", 0)])
+def test_named_planes_sit_at_the_offset_along_their_missing_axis(name, axis):
+    plane = Plane.named(name, offset=0.75, extent=2.0, resolution=5)
+    points = plane.points()
+    np.testing.assert_allclose(points[axis], 0.75)

@@ -18,7 +18,7 @@ MAX_RESOLUTION: Final[int] = 2048
 #: The coordinate planes: normal, in-plane horizontal axis, in-plane vertical axis.
 NAMED_PLANES: Final[dict[str, tuple[tuple[float, ...], tuple[float, ...], tuple[float, ...]]]] = {
     "xy": ((0.0, 0.0, 1.0), (1.0, 0.0, 0.0), (0.0, 1.0, 0.0)),
-    "xz": ((0.0, -1.0, 0.0), (1.0, 0.0, 0.0), (0.0, 0.0, 1.0)),
+    "xz": ((0.0, 1.0, 0.0), (1.0, 0.0, 0.0), (0.0, 0.0, 1.0)),  # y = offset
     "yz": ((1.0, 0.0, 0.0), (0.0, 1.0, 0.0), (0.0, 0.0, 1.0)),
 }
 
