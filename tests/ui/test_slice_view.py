@@ -128,7 +128,7 @@ def test_labels_and_tooltips_define_the_quantity(view, p_z):
     bar_axis = view._colour_bar.getAxis("right")
     assert bar_axis.labelText == p_z.value_label
     assert QUANTITIES["psi"].formula in bar_axis.toolTip()
-    title = view._plot.titleLabel.text
+    title = view._title.text()
     assert p_z.title in title and p_z.plane_text in title
 
 

@@ -131,10 +131,20 @@ class SliceView(QWidget):
         self._message.setWordWrap(True)
         self._message.setStyleSheet(f"QLabel {{ background: white; color: {MUTED_TEXT}; padding: 24px; }}")
 
+        # The title is a plain label above the plot: changing its text (every new plane
+        # offset, orbital or model) then never re-lays out the plot and its axes.
+        self._title = QLabel()
+        self._title.setTextFormat(Qt.TextFormat.RichText)
+        self._title.setAlignment(Qt.AlignmentFlag.AlignCenter)
+        self._title.setSizePolicy(QSizePolicy.Policy.Ignored, QSizePolicy.Policy.Fixed)
+        self._title.setStyleSheet("QLabel { background: white; }")
+        self._title.setContentsMargins(4, 4, 4, 0)
+
         page = QWidget()
         column = QVBoxLayout(page)
         column.setContentsMargins(0, 0, 0, 0)
         column.setSpacing(0)
+        column.addWidget(self._title)
         column.addWidget(self._graphics, 1)
         column.addWidget(self._readout)
         self._stack = QStackedLayout(self)
@@ -215,14 +225,17 @@ class SliceView(QWidget):
             self._draw_cursor(self._v_line.value(), self._h_line.value())
 
     def _set_labels(self, scene: SliceScene) -> None:
-        labels = (scene.title, scene.plane_text, *scene.axis_labels, scene.value_label, scene.quantity)
-        if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
-            return
-        self._labels = labels
-        self._plot.setTitle(
+        title = (
             f'<span style="font-size:11pt; color:{AXIS_COLOUR}">{html.escape(scene.title)}</span><br>'
             f'<span style="font-size:9pt; color:{MUTED_TEXT}">{html.escape(scene.plane_text)}</span>'
         )
+        if title != self._title.text():
+            self._title.setText(title)
+            self._title.setToolTip(f"{scene.spec} under the {scene.model} model; {scene.plane_text}")
+        labels = (*scene.axis_labels, scene.value_label, scene.quantity)
+        if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
+            return
+        self._labels = labels
         self._plot.setLabel("bottom", html.escape(scene.axis_labels[0]), **label_style())
         self._plot.setLabel("left", html.escape(scene.axis_labels[1]), **label_style())
         bar_axis = self._colour_bar.getAxis("right")
@@ -235,11 +248,10 @@ class SliceView(QWidget):
         self._readout.setToolTip(value_tip)
         for side, name in (("bottom", scene.axis_labels[0]), ("left", scene.axis_labels[1])):
             symbol, unit = split_label(name)
-            tip = f"{symbol}: coordinate in the slice plane ({scene.plane_text})\nUnits: {unit}"
+            tip = f"{symbol}: coordinate in the slice plane (see the line under the title)\nUnits: {unit}"
             axis = self._plot.getAxis(side)
             axis.setToolTip(tip)
             axis.label.setToolTip(tip)
-        self._plot.titleLabel.setToolTip(f"{scene.spec} under the {scene.model} model; {scene.plane_text}")
 
     def set_empty_message(self, text: str) -> None:
         """Clear the view and show ``text`` instead.
