@@ -2,10 +2,11 @@
 
 ``zeffir`` with no arguments shows the built-in demo; ``zeffir table SPEC`` prints
 a subshell table (``--json`` for one machine-readable object in atomic units);
-``zeffir figure SPEC --out FILE`` writes a figure or data file of the radial or
-slice view (the format follows the suffix), optionally comparing two models or
-two specs. Bad input prints the reason on stderr and exits with status 2, never a
-traceback, and leaves no partial file.
+``zeffir terms SPEC`` lists the term symbols, J levels and Hund ground level of a
+configuration (``--json`` for one object); ``zeffir figure SPEC --out FILE`` writes a
+figure or data file of the radial or slice view (the format follows the suffix),
+optionally comparing two models or two specs. Bad input prints the reason on stderr
+and exits with status 2, never a traceback, and leaves no partial file.
 """
 
 from __future__ import annotations
@@ -21,9 +22,11 @@ from typing import TYPE_CHECKING, Any
 from zeffir import __version__
 
 if TYPE_CHECKING:
+    from zeffir.core import Configuration
+    from zeffir.core.terms import Level
     from zeffir.state import OrbitalChoice, ViewState
 
-__all__ = ["figure_state", "main", "parse_orbital", "table_json"]
+__all__ = ["figure_state", "main", "parse_orbital", "table_json", "terms_json"]
 
 EXIT_BAD_INPUT = 2
 
@@ -59,6 +62,18 @@ def _parser() -> argparse.ArgumentParser:
                        help="units of the text table (JSON is always atomic)")
     table.add_argument("--json", action="store_true",
                        help="print one JSON object in atomic units instead of a table")
+    terms = commands.add_parser(
+        "terms",
+        help="term symbols, J levels and the Hund ground level of a configuration",
+        description="List the LS terms of a configuration, grouped by multiplicity with their "
+        "J levels (a term that occurs several times is counted), and its ground level by "
+        "Hund's rules.",
+    )
+    terms.add_argument(
+        "spec", nargs="+", metavar="SPEC",
+        help="atom spec, e.g. C, Fe, Fe3+, 'C 1s2 2s2 2p1 3p1', 'Ce [Xe] 4f1 5d1 6s2'",
+    )
+    terms.add_argument("--json", action="store_true", help="print one JSON object instead of text")
     _add_figure_parser(commands, DEFAULT_MODEL, model_names())
     return parser
 
@@ -201,6 +216,101 @@ def _format_table(spec: str, model: str, units: str) -> str:
                  f"total energy: {num(orbitals.total_energy, energy)} {eu}")
     notes = [*orbitals.notes, *(note for row in rows for note in row.notes)]
     lines.extend(f"note: {note}" for note in dict.fromkeys(notes))
+    return "\n".join(lines)
+
+
+def _level_json(level: Level) -> dict[str, Any]:
+    return {"S": level.S, "L": level.L, "J": level.J, "parity": level.parity, "label": level.label}
+
+
+def terms_json(spec: str) -> dict[str, Any]:
+    """The ``terms --json`` object: every term (repeats listed), the Hund ground level, notes."""
+    from zeffir.core import parse_spec
+    from zeffir.core.terms import (
+        configuration_parity,
+        configuration_terms,
+        ground_level,
+        ground_notes,
+        known_hund_miss,
+        microstate_count,
+    )
+
+    configuration = parse_spec(spec)
+    observed = known_hund_miss(configuration)
+    return {
+        "spec": configuration.spec,
+        "configuration": configuration.text,
+        "open_subshells": _open_text(configuration),
+        "parity": configuration_parity(configuration),
+        "microstates": microstate_count(configuration),
+        "terms": [
+            {"S": term.S, "L": term.L, "parity": term.parity, "J": list(term.J), "label": term.label}
+            for term in configuration_terms(configuration)
+        ],
+        "ground": _level_json(ground_level(configuration)),
+        "observed_ground": None if observed is None else _level_json(observed),
+        "notes": list(ground_notes(configuration)),
+    }
+
+
+def _open_text(configuration: Configuration) -> str:
+    return " ".join(f"{sub.label}{configuration.occupancy(sub)}" for sub in configuration.open_subshells)
+
+
+_MULTIPLICITY_NAMES = ("singlets", "doublets", "triplets", "quartets", "quintets", "sextets",
+                       "septets", "octets", "nonets")
+
+
+def _half(value: float) -> str:
+    return f"{value:g}" if value == int(value) else f"{round(2 * value)}/2"
+
+
+def _format_terms(spec: str) -> str:
+    from collections import Counter
+
+    from zeffir.core import parse_spec
+    from zeffir.core.terms import (
+        configuration_parity,
+        configuration_terms,
+        ground_level,
+        ground_notes,
+        microstate_count,
+    )
+
+    configuration = parse_spec(spec)
+    terms = configuration_terms(configuration)
+    parity = configuration_parity(configuration)
+    count = microstate_count(configuration)
+    charge = f", charge {configuration.charge:+d}" if configuration.charge else ""
+    open_text = _open_text(configuration) or "none (closed shells)"
+    mark = " (° marks odd terms)" if parity == "odd" else ""
+    lines = [
+        f"{configuration.element.name} (Z = {configuration.Z}{charge}): {configuration.text}",
+        f"open subshells: {open_text} — {count} microstate{'s' if count != 1 else ''}, "
+        f"parity {parity}{mark}",
+        "",
+    ]
+    repeats = Counter(terms)
+    distinct = list(repeats)  # first-seen order: S, then L, descending
+    names = {term: term.display + (f" ×{repeats[term]}" if repeats[term] > 1 else "")
+             for term in distinct}
+    width = max(len(name) for name in names.values())
+    lines.append(f"{len(terms)} term{'s' if len(terms) != 1 else ''}"
+                 + (f" ({len(distinct)} distinct)" if len(distinct) != len(terms) else ""))
+    group = None
+    for term in distinct:
+        if term.multiplicity != group:
+            group = term.multiplicity
+            title = (_MULTIPLICITY_NAMES[group - 1] if group <= len(_MULTIPLICITY_NAMES)
+                     else f"multiplicity {group}")
+            lines.append(f"  {title} (S = {_half(term.S)})")
+        levels = ", ".join(_half(j) for j in term.J)
+        lines.append(f"    {names[term]:<{width}}   J = {levels}")
+    lines.append("")
+    ground = ground_level(configuration)
+    lines.append(f"ground level by Hund's rules: {ground.display}  "
+                 f"(S = {_half(ground.S)}, L = {ground.L}, J = {_half(ground.J)})")
+    lines.extend(f"note: {note}" for note in ground_notes(configuration))
     return "\n".join(lines)
 
 
@@ -425,6 +535,10 @@ def main(argv: Sequence[str] | None = None) -> int:
                 print(json.dumps(table_json(spec, args.model)))
             else:
                 print(_format_table(spec, args.model, args.units))
+            return 0
+        if args.command == "terms":
+            spec = " ".join(args.spec)
+            print(json.dumps(terms_json(spec)) if args.json else _format_terms(spec))
             return 0
         if args.command == "figure":
             return _figure(args)
