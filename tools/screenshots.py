@@ -52,6 +52,13 @@ def main(out: Path) -> int:
     shot("5-slice-side-by-side")
     model.update(view="radial", length_unit="angstrom")
     shot("6-radial-side-by-side-angstrom")
+    model.update(left=Source("N"), view="pair", length_unit="bohr",
+                 compare=replace(model.state.compare, enabled=False),
+                 slice=replace(model.state.slice, plane="xz", extent=4.0, resolution=256))
+    model.update(pair=replace(model.state.pair, reference=(0.0, 0.0, 1.1)))
+    shot("7-pair")
+    model.update(left=Source("Li+ 1s1 2s1", "hydrogenic"), view="two-electron")
+    shot("8-two-electron")
     window.worker.shutdown()
     return 0
 

@@ -93,8 +93,21 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str])
                         help="atom spec, e.g. Fe, 26, Fe3+, O2-, 'C 1s2 2s1 2p3', 'Na [Ne] 4d1'")
     figure.add_argument("--out", required=True, metavar="FILE",
                         help="output file: .png .svg .pdf (figure), .csv (radial data), .npz (slice data)")
-    figure.add_argument("--view", default="radial", choices=("radial", "slice"),
-                        help="radial curves or a 2D slice (default radial)")
+    figure.add_argument("--view", default="radial", choices=("radial", "slice", "pair", "two-electron"),
+                        help="radial curves, a 2D slice, the pair view (densities of the other "
+                        "electrons and the exchange hole for a reference electron) or the "
+                        "two-electron view (singlet, triplet, difference); default radial")
+    figure.add_argument("--ref", type=float, nargs=3, metavar=("X", "Y", "Z"),
+                        help="pair: position of the reference electron, in the --units length "
+                        "(default 0 0 1 bohr)")
+    figure.add_argument("--spin", choices=("up", "down"), default="up",
+                        help="pair: spin of the reference electron (default up)")
+    figure.add_argument("--determinant", metavar="TEXT", default="",
+                        help="pair: spin-orbitals of open subshells, e.g. '2p: 1u 0u -1d' "
+                        "(default Hund's rules)")
+    figure.add_argument("--map", choices=("radial", "collinear"), default="radial",
+                        help="two-electron: radial pair distribution P(r1, r2), or ψ with both "
+                        "electrons on the z axis (default radial)")
     figure.add_argument("--model", default=default_model, choices=models,
                         help=f"model (default {default_model})")
     figure.add_argument("--versus", metavar="B",
@@ -424,16 +437,20 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         SLICE_QUANTITIES,
         CompareSettings,
         OrbitalChoice,
+        PairSettings,
         RadialSettings,
         SliceSettings,
         Source,
         StateError,
+        TwoElectronSettings,
         ViewState,
     )
 
     spec = " ".join(args.spec)
     configuration = parse_spec(spec)
     view = args.view
+    if args.quantity is not None and view in ("pair", "two-electron"):
+        raise _InputError(f"--quantity: the {view} view has its own panels; leave --quantity out")
     if args.quantity is not None:
         allowed = RADIAL_QUANTITIES if view == "radial" else SLICE_QUANTITIES
         if args.quantity not in allowed:
@@ -486,6 +503,17 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         versus = args.versus.strip()
         right = Source(spec, versus) if versus in model_names() else Source(versus, args.model)
         compare = replace(compare, enabled=True, right=right)
+    if view in ("pair", "two-electron") and args.versus is not None:
+        raise _InputError(f"--versus: the {view} view compares its own panels; leave --versus out")
+    reference = (0.0, 0.0, 1.0)
+    if args.ref is not None:
+        scale = 1.0 if args.units == "atomic" else 1.0 / _angstrom_per_bohr()
+        if not all(math.isfinite(c) for c in args.ref):
+            raise _InputError("--ref: three finite coordinates")
+        reference = tuple(float(c) * scale for c in args.ref)
+    if view == "two-electron" and configuration.n_electrons != 2:
+        raise _InputError(f"--view two-electron: {configuration.spec} has {configuration.n_electrons} "
+                          "electrons; the singlet and triplet maps need exactly two (e.g. 'Li+ 1s1 2s1')")
     state = ViewState(
         left=Source(spec, args.model),
         orbital=orbital,
@@ -494,6 +522,9 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         radial=radial,
         slice=slice_settings,
         compare=compare,
+        pair=PairSettings(reference=reference, spin=args.spin, determinant=args.determinant),  # type: ignore[arg-type]
+        two_electron=TwoElectronSettings(map=args.map, r_limit=radial.r_limit,
+                                         resolution=slice_settings.resolution),
     )
     try:
         return state.validated()
@@ -506,6 +537,12 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         raise _InputError(f"{option}: {reason}" if option else message) from None
     except ZeffirError as error:  # pragma: no cover - validation raises StateError
         raise _InputError(str(error)) from None
+
+
+def _angstrom_per_bohr() -> float:
+    from zeffir.core import ANGSTROM_PER_BOHR
+
+    return float(ANGSTROM_PER_BOHR)
 
 
 def _figure(args: argparse.Namespace) -> int:

@@ -73,6 +73,14 @@ def main() -> int:
     error = np.nanmax(np.abs(reference - ours_values)) / np.abs(ours_values).max()
     report("slice_4f_vs_sympy_speedup", sympy_time / ours, "x faster", ">= 10")
     print(f"  (largest difference from sympy's values: {error:.1e} of the maximum)")
+
+    # (iv) the exchange hole of Ne (closed shells, Hund determinant) on a 512² slice.
+    from zeffir.core.pairs import exchange_hole_on_plane
+
+    neon = build("Ne")
+    hole_plane = Plane.named("xz", extent=3.0, resolution=SIZE)
+    hole = median_seconds(lambda: exchange_hole_on_plane(neon, hole_plane, (0.0, 0.0, 0.5)))
+    report("exchange_hole_ne_512", hole / baseline, "x np.exp", "<= 4")
     window_cases(baseline)
     return 0
 

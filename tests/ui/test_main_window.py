@@ -189,3 +189,32 @@ def test_cancel_hides_the_progress_indicator(window):
     assert not window.progress.isHidden()
     window.cancel_button.click()
     assert window.progress.isHidden()
+
+
+def test_pair_view_shows_densities_and_hole_and_click_moves_the_reference(window):
+    window.model.update(left=Source("Ne"), view="pair",
+                        slice=SliceSettings(extent=3.0, resolution=64))
+    views = window.pair_trio.views
+    images = [v.image_data() for v in views]
+    assert all(image.shape == (64, 64) for image in images)
+    assert images[2].max() <= 0.0 < images[0].max()  # the hole is a deficit
+    assert "∫ = -1.000" in views[2]._title.text()
+    window._place_reference(0.5, -0.25)  # what a click at (u, v) on the xz plane does
+    assert window.model.state.pair.reference == pytest.approx((0.5, 0.0, -0.25))
+    assert views[0].marker_position() == pytest.approx((0.5, -0.25))
+
+
+def test_invalid_determinant_is_refused_and_nothing_changes(window):
+    window.model.update(left=Source("N"), view="pair", slice=SliceSettings(resolution=32))
+    before = window.model.state
+    window.controls.determinant.setText("2p: 1u 1u 0u")
+    window.controls._emit_pair()
+    assert "1u" in window.controls.determinant_message.text()
+    assert window.model.state == before
+
+
+def test_two_electron_view_shows_singlet_triplet_and_difference(window):
+    window.model.update(left=Source("Li+ 1s1 2s1", "hydrogenic"), view="two-electron")
+    singlet, triplet, difference = (v.image_data() for v in window.two_trio.views)
+    np.testing.assert_allclose(difference, triplet - singlet)
+    assert window.tabs.currentIndex() == 3

@@ -339,6 +339,10 @@ def _draw_slice(ax: Axes, scene: SliceScene) -> AxesImage:
     if scene.zero_contour and finite.size and finite.min() < 0.0 < finite.max():
         ax.contour(u, u, scene.zero_contour_field(), levels=[0.0], colors="black", linewidths=0.7,
                    linestyles="solid")
+    if scene.marker is not None:  # the reference electron of the pair view
+        ax.plot(*scene.marker, marker="+", markersize=7, markeredgewidth=1.2, color="#e6007e")
+        ax.plot(*scene.marker, marker="o", markersize=7, markerfacecolor="none",
+                markeredgewidth=0.8, color="#e6007e")
     ax.set_xlabel(scene.axis_labels[0])
     ax.set_ylabel(scene.axis_labels[1])
     # A full frame; ticks outside, where the image cannot hide them.

@@ -9,7 +9,14 @@ from typing import Final
 from zeffir.export._data import DATA_FORMATS, write_data
 from zeffir.export._errors import ExportError
 from zeffir.export._figures import FIGURE_FORMATS, Target, check_figure_options, write_figure
-from zeffir.scene import compare_radial, compare_slices, radial_scene, slice_scene
+from zeffir.scene import (
+    compare_radial,
+    compare_slices,
+    pair_scenes,
+    radial_scene,
+    slice_scene,
+    two_electron_scenes,
+)
 from zeffir.state import ViewState
 
 __all__ = ["EXPORT_FORMATS", "export_view", "view_target"]
@@ -31,6 +38,10 @@ def view_target(state: ViewState) -> Target:
     -------
     RadialScene, SliceScene, RadialComparison or SliceComparison
     """
+    if state.view == "pair":
+        return pair_scenes(state)
+    if state.view == "two-electron":
+        return two_electron_scenes(state)
     if state.view == "radial":
         if state.compare.enabled:
             return compare_radial(state)
@@ -77,7 +88,7 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
         )
     if suffix == ".csv" and state.view != "radial":
         raise ExportError(f"{target_path}: .csv holds radial curves; save the slice view as .npz")
-    if suffix == ".npz" and state.view != "slice":
+    if suffix == ".npz" and state.view == "radial":
         raise ExportError(f"{target_path}: .npz holds slice images; save the radial view as .csv")
     directory = target_path.parent
     if not directory.is_dir():

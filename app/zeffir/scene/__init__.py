@@ -8,6 +8,14 @@ from zeffir.scene._build import orbitals_for
 from zeffir.scene._colours import DIVERGING, SEQUENTIAL, colour_stops
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
+from zeffir.scene._pairs import (
+    PairScenes,
+    TwoElectronScenes,
+    determinant_for,
+    hole_integral,
+    pair_scenes,
+    two_electron_scenes,
+)
 from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length_symbol, unit_text
 from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import (
@@ -29,24 +37,30 @@ __all__ = [
     "ContourPaths",
     "Curve",
     "Marker",
+    "PairScenes",
     "Quantity",
     "RadialComparison",
     "RadialScene",
     "SliceComparison",
     "SliceScene",
+    "TwoElectronScenes",
     "colour_scale",
     "colour_stops",
     "compare_radial",
     "compare_slices",
     "contour_levels",
+    "determinant_for",
+    "hole_integral",
     "length_factor",
     "length_symbol",
     "orbital_name",
     "orbitals_for",
+    "pair_scenes",
     "plane_of",
     "radial_range",
     "radial_scene",
     "slice_scene",
     "trace_contours",
+    "two_electron_scenes",
     "unit_text",
 ]

@@ -67,5 +67,5 @@ def unit_text(unit: str, power: float) -> str:
     if power == 0:
         return "electrons"
     base = length_symbol(unit)
-    names = {-0.5: "⁻¹ᐟ²", -1.0: "⁻¹", -1.5: "⁻³ᐟ²", -3.0: "⁻³", 1.0: ""}
+    names = {-0.5: "⁻¹ᐟ²", -1.0: "⁻¹", -1.5: "⁻³ᐟ²", -2.0: "⁻²", -3.0: "⁻³", 1.0: ""}
     return f"{base}{names[power]}"

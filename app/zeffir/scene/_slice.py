@@ -57,6 +57,7 @@ class SliceScene:
     levels: tuple[float, ...]
     zero_contour: bool
     contours: ContourPaths | None = None
+    marker: tuple[float, float] | None = None  # (u, v) of a point to mark, display units
 
     def with_contours(self) -> SliceScene:
         """This scene with its contour lines traced (see :func:`trace_contours`)."""

@@ -18,10 +18,12 @@ __all__ = [
     "SLICE_QUANTITIES",
     "CompareSettings",
     "OrbitalChoice",
+    "PairSettings",
     "RadialSettings",
     "SliceSettings",
     "Source",
     "StateError",
+    "TwoElectronSettings",
     "ViewState",
 ]
 
@@ -29,7 +31,9 @@ LengthUnit = Literal["bohr", "angstrom"]
 RadialQuantity = Literal["R", "P", "D", "Q"]
 SliceQuantity = Literal["psi", "psi2", "density"]
 PlaneName = Literal["xy", "xz", "yz", "custom"]
-ViewName = Literal["radial", "slice"]
+ViewName = Literal["radial", "slice", "pair", "two-electron"]
+SpinName = Literal["up", "down"]
+TwoElectronMap = Literal["radial", "collinear"]
 
 LENGTH_UNITS: Final = get_args(LengthUnit)
 RADIAL_QUANTITIES: Final = get_args(RadialQuantity)
@@ -104,6 +108,27 @@ class SliceSettings:
 
 
 @dataclass(frozen=True)
+class PairSettings:
+    """The pair view: a reference electron, its spin, and which determinant.
+
+    The plane, half-width and resolution are the slice view's.
+    """
+
+    reference: tuple[float, float, float] = (0.0, 0.0, 1.0)  # bohr
+    spin: SpinName = "up"
+    determinant: str = ""  # open-subshell choice in the determinant syntax; "" = Hund's rules
+
+
+@dataclass(frozen=True)
+class TwoElectronSettings:
+    """The two-electron view: which pair of subshells and which map."""
+
+    map: TwoElectronMap = "radial"
+    r_limit: float | None = None  # bohr; None = automatic
+    resolution: int = 256
+
+
+@dataclass(frozen=True)
 class CompareSettings:
     """The side-by-side comparison: the right-hand source and whether it is on."""
 
@@ -123,6 +148,8 @@ class ViewState:
     radial: RadialSettings = field(default_factory=RadialSettings)
     slice: SliceSettings = field(default_factory=SliceSettings)
     compare: CompareSettings = field(default_factory=CompareSettings)
+    pair: PairSettings = field(default_factory=PairSettings)
+    two_electron: TwoElectronSettings = field(default_factory=TwoElectronSettings)
 
     def with_changes(self, **changes: Any) -> ViewState:
         """A copy with top-level fields replaced (nested objects are replaced whole)."""
@@ -161,6 +188,14 @@ class ViewState:
         if not (0 <= s.contours <= 40):
             raise StateError("slice.contours: between 0 and 40 levels")
         _check_choice("orbital.kind", self.orbital.kind, ("real", "complex"))
+        _check_choice("pair.spin", self.pair.spin, ("up", "down"))
+        if len(self.pair.reference) != 3 or not all(abs(c) < 1e4 for c in self.pair.reference):
+            raise StateError("pair.reference: three coordinates in bohr (each below 10000)")
+        _check_choice("two_electron.map", self.two_electron.map, ("radial", "collinear"))
+        if not (16 <= self.two_electron.resolution <= MAX_VIEW_RESOLUTION):
+            raise StateError(f"two_electron.resolution: must be between 16 and {MAX_VIEW_RESOLUTION}")
+        if self.two_electron.r_limit is not None and not (self.two_electron.r_limit > 0):
+            raise StateError("two_electron.r_limit: must be a positive number of bohr or empty")
         return replace(self, orbital=reconcile_orbital(self.left.spec, self.orbital))
 
     def to_dict(self) -> dict[str, Any]:

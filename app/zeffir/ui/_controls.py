@@ -12,13 +12,16 @@ from PySide6.QtWidgets import (
     QFormLayout,
     QGroupBox,
     QHBoxLayout,
+    QLabel,
+    QLineEdit,
     QSpinBox,
     QVBoxLayout,
     QWidget,
 )
 
+from zeffir.core import ZeffirError, parse_spec
 from zeffir.scene import QUANTITIES
-from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, ViewState
+from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, PairSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
 
 __all__ = ["ViewControls"]
@@ -70,6 +73,8 @@ class ViewControls(QWidget):
     slice_edited = Signal(object)
     units_edited = Signal(str)
     compare_edited = Signal(object)
+    pair_edited = Signal(object)
+    two_electron_edited = Signal(object)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -80,6 +85,8 @@ class ViewControls(QWidget):
         layout.addWidget(self._build_radial())
         layout.addWidget(self._build_slice())
         layout.addWidget(self._build_compare())
+        layout.addWidget(self._build_pair())
+        layout.addWidget(self._build_two_electron())
         layout.addStretch(1)
         self._slice_timer = QTimer(self)
         self._slice_timer.setSingleShot(True)
@@ -185,6 +192,59 @@ class ViewControls(QWidget):
         self.compare_source.source_edited.connect(lambda _s: self._emit_compare())
         return box
 
+    def _build_pair(self) -> QGroupBox:
+        box = QGroupBox("Pair view")
+        form = QFormLayout(box)
+        hint = QLabel("Click a panel to place the reference electron on the plane.")
+        hint.setWordWrap(True)
+        hint.setStyleSheet("color: #555;")
+        self.reference = [_spin(-200.0, 200.0, 0.1, 3, "") for _ in range(3)]
+        reference_row = QWidget()
+        reference_layout = QHBoxLayout(reference_row)
+        reference_layout.setContentsMargins(0, 0, 0, 0)
+        for spin, axis in zip(self.reference, "xyz", strict=True):
+            spin.setToolTip(f"{axis} of the reference electron r₁ (bohr)")
+            reference_layout.addWidget(spin)
+        self.spin_box = QComboBox()
+        self.spin_box.addItem("↑ (spin up, α)", "up")
+        self.spin_box.addItem("↓ (spin down, β)", "down")
+        self.determinant = QLineEdit()
+        self.determinant.setPlaceholderText("Hund's rules, e.g. 2p: 1u 0u -1d")
+        self.determinant.setToolTip(
+            "Spin-orbitals of open subshells: '<subshell>: <m><u|d> ...', several separated by ';'.\n"
+            "u = spin up (α), d = spin down (β); m is the magnetic quantum number (complex orbitals).\n"
+            "Subshells left out follow Hund's rules (maximum S, then maximum M_L)."
+        )
+        self.determinant_message = QLabel()
+        self.determinant_message.setWordWrap(True)
+        self.determinant_message.setStyleSheet("color: #b00020;")
+        form.addRow(hint)
+        form.addRow("r₁ / bohr", reference_row)
+        form.addRow("Spin", self.spin_box)
+        form.addRow("Determinant", self.determinant)
+        form.addRow(self.determinant_message)
+        for spin in self.reference:
+            spin.valueChanged.connect(lambda _v: self._emit_pair())
+        self.spin_box.activated.connect(lambda _i: self._emit_pair())
+        self.determinant.returnPressed.connect(self._emit_pair)
+        self.determinant.editingFinished.connect(self._emit_pair)
+        return box
+
+    def _build_two_electron(self) -> QGroupBox:
+        box = QGroupBox("Two-electron view")
+        form = QFormLayout(box)
+        self.two_map = _shrinkable(QComboBox())
+        self.two_map.addItem("radial pair distribution P(r₁, r₂)", "radial")
+        self.two_map.addItem("ψ with both electrons on the z axis", "collinear")
+        self.two_map.setToolTip(
+            "P(r₁, r₂) = r₁²r₂² ∫∫|ψ|² dΩ₁dΩ₂ (angles integrated), or ψ(s₁ẑ, s₂ẑ):\n"
+            "the triplet vanishes where both electrons meet (s₁ = s₂)."
+        )
+        form.addRow("Map", self.two_map)
+        self.two_map.activated.connect(lambda _i: self.two_electron_edited.emit(
+            replace(self._state.two_electron, map=str(self.two_map.currentData()))))
+        return box
+
     # -- state → widgets ------------------------------------------------------------
     def show_state(self, state: ViewState) -> None:
         """Display ``state`` with every widget's signals blocked (no echo)."""
@@ -226,6 +286,18 @@ class ViewControls(QWidget):
         self.compare_source.show_source(c.right)
         self.compare_source.setEnabled(c.enabled)
         self.show_difference.setEnabled(c.enabled)
+        self.spin_box.blockSignals(True)
+        self.spin_box.setCurrentIndex(self.spin_box.findData(state.pair.spin))
+        self.spin_box.blockSignals(False)
+        for spin, value in zip(self.reference, state.pair.reference, strict=True):
+            spin.blockSignals(True)
+            spin.setValue(value)
+            spin.blockSignals(False)
+        if not self.determinant_message.text():
+            self.determinant.setText(state.pair.determinant)
+        self.two_map.blockSignals(True)
+        self.two_map.setCurrentIndex(self.two_map.findData(state.two_electron.map))
+        self.two_map.blockSignals(False)
         for widget in widgets:
             widget.blockSignals(False)
 
@@ -257,6 +329,23 @@ class ViewControls(QWidget):
             contours=self.contours.value(),
             log_scale=self.log_scale.isChecked(),
             full_range=self.full_range.isChecked(),
+        ))
+
+    def _emit_pair(self) -> None:
+        text = self.determinant.text().strip()
+        if text:
+            from zeffir.core.pairs import parse_determinant
+
+            try:
+                parse_determinant(parse_spec(self._state.left.spec), text)
+            except ZeffirError as error:
+                self.determinant_message.setText(str(error))
+                return
+        self.determinant_message.clear()
+        self.pair_edited.emit(PairSettings(
+            reference=tuple(spin.value() for spin in self.reference),  # type: ignore[arg-type]
+            spin=str(self.spin_box.currentData()),  # type: ignore[arg-type]
+            determinant=text,
         ))
 
     def _emit_compare(self) -> None:

@@ -33,9 +33,11 @@ from zeffir.scene import (
     compare_slices,
     length_factor,
     orbitals_for,
+    pair_scenes,
     plane_of,
     radial_scene,
     slice_scene,
+    two_electron_scenes,
 )
 from zeffir.state import OrbitalChoice, Source, ViewState
 from zeffir.ui._about import show_about
@@ -65,6 +67,19 @@ def _slice_job(state: ViewState) -> Any:
     if state.compare.enabled:
         return compare_slices(state)
     return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
+
+
+def _pair_job(state: ViewState) -> Any:
+    return pair_scenes(state)
+
+
+def _two_electron_job(state: ViewState) -> Any:
+    return two_electron_scenes(state)
+
+
+_VIEWS = ("radial", "slice", "pair", "two-electron")
+_JOBS = {"radial": _radial_job, "slice": _slice_job, "pair": _pair_job,
+         "two-electron": _two_electron_job}
 
 
 def _contour_job(scenes: list[Any]) -> Any:
@@ -177,8 +192,20 @@ class MainWindow(QMainWindow):
         self.tabs = QTabWidget()
         self.tabs.addTab(self.radial_trio, "Radial")
         self.tabs.addTab(self.slice_trio, "Slice")
+        self.pair_trio = _Trio(SliceView)
+        self.two_trio = _Trio(SliceView)
+        for view in (*self.pair_trio.views, *self.two_trio.views):
+            view.use_external_contours(True)
+        self.tabs.addTab(self.pair_trio, "Pair")
+        self.tabs.addTab(self.two_trio, "Two electrons")
         self.tabs.setTabToolTip(0, "Radial functions, distributions and cumulative charge")
         self.tabs.setTabToolTip(1, "Orbitals and densities on a plane through the atom")
+        self.tabs.setTabToolTip(2, "For a reference electron at r₁: the other same-spin electrons, the "
+                                   "opposite-spin electrons and the exchange (Fermi) hole")
+        self.tabs.setTabToolTip(3, "Singlet and triplet of a two-electron configuration "
+                                   "(e.g. Li+ 1s1 2s1) and their difference")
+        self._trios = {"radial": self.radial_trio, "slice": self.slice_trio,
+                       "pair": self.pair_trio, "two-electron": self.two_trio}
         views_and_table = QSplitter(Qt.Orientation.Vertical)
         views_and_table.addWidget(self.tabs)
         views_and_table.addWidget(self.table)
@@ -211,10 +238,21 @@ class MainWindow(QMainWindow):
         self.controls.slice_edited.connect(lambda s: self.model.update(slice=s))
         self.controls.units_edited.connect(lambda u: self.model.update(length_unit=u))
         self.controls.compare_edited.connect(lambda c: self.model.update(compare=c))
-        self.tabs.currentChanged.connect(
-            lambda i: self.model.update(view="radial" if i == 0 else "slice"))
-        for trio in (self.radial_trio, self.slice_trio):
+        self.controls.pair_edited.connect(lambda p: self.model.update(pair=p))
+        self.controls.two_electron_edited.connect(lambda t: self.model.update(two_electron=t))
+        self.tabs.currentChanged.connect(lambda i: self.model.update(view=_VIEWS[i]))
+        for view in self.pair_trio.views:
+            view.clicked.connect(self._place_reference)
+        for trio in (self.radial_trio, self.slice_trio, self.pair_trio, self.two_trio):
             self._link_cursors(trio)
+
+    def _place_reference(self, u: float, v: float) -> None:
+        """Put the pair view's reference electron where the user clicked (on the slice plane)."""
+        state = self.model.state
+        scale = length_factor(state.length_unit, 1.0)
+        x, y, z = _point_mapper(state)(u, v)
+        reference = (round(x / scale, 4), round(y / scale, 4), round(z / scale, 4))
+        self.model.update(pair=replace(state.pair, reference=reference))
 
     def _link_cursors(self, trio: _Trio) -> None:
         signal = "cursor_moved" if isinstance(trio.views[0], RadialView) else "hovered"
@@ -268,11 +306,7 @@ class MainWindow(QMainWindow):
         self._show_state(new)
         if new.left != old.left:
             self.worker.request("table", lambda s=new.left: _table_job(s))
-        if new.view == "radial" and _radial_inputs(new) != _radial_inputs(old):
-            self.worker.request("radial", lambda s=new: _radial_job(s))
-        if new.view == "slice" and _slice_inputs(new) != _slice_inputs(old):
-            self.worker.request("slice", lambda s=new: _slice_job(s))
-        if new.view != old.view:
+        if new.view != old.view or _view_inputs(new) != _view_inputs(old):
             self._request_view(new)
         if new.length_unit != old.length_unit:
             self.worker.request("table", lambda s=new.left: _table_job(s))
@@ -281,13 +315,15 @@ class MainWindow(QMainWindow):
         self.atom_bar.show_state(state.left, state.orbital)
         self.controls.show_state(state)
         self.tabs.blockSignals(True)
-        self.tabs.setCurrentIndex(0 if state.view == "radial" else 1)
+        self.tabs.setCurrentIndex(_VIEWS.index(state.view))
         self.tabs.blockSignals(False)
         self.compare_action.setChecked(state.compare.enabled)
         self.unit_actions[state.length_unit].setChecked(True)
         columns = (3 if state.compare.show_difference else 2) if state.compare.enabled else 1
         self.radial_trio.set_columns(columns)
         self.slice_trio.set_columns(columns)
+        self.pair_trio.set_columns(3)
+        self.two_trio.set_columns(3)
         name = self.session_path.name if self.session_path else "untitled"
         self.setWindowTitle(f"Zeffir — {state.left.spec} ({name})")
 
@@ -297,10 +333,8 @@ class MainWindow(QMainWindow):
         self._request_view(state)
 
     def _request_view(self, state: ViewState) -> None:
-        if state.view == "radial":
-            self.worker.request("radial", lambda s=state: _radial_job(s))
-        else:
-            self.worker.request("slice", lambda s=state: _slice_job(s))
+        job = _JOBS[state.view]
+        self.worker.request(state.view, lambda s=state: job(s))
 
     @Slot(str, object)
     def _on_result(self, key: str, result: Any) -> None:
@@ -312,22 +346,23 @@ class MainWindow(QMainWindow):
             self.last_export = result
             self.statusBar().showMessage(f"Exported {result}", 8000)
             return
-        trio = self.radial_trio if key == "radial" else self.slice_trio
         parts = ([result.left, result.right, result.difference]
                  if hasattr(result, "difference") else [result])
-        if key == "slice-contours":
-            for view, scene in zip(self.slice_trio.views, result, strict=False):
+        if key.endswith("-contours"):
+            for view, scene in zip(self._trios[key.removesuffix("-contours")].views, result, strict=False):
                 view.show_contours(scene)
             return
+        trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
-        if key == "slice":
-            point_of = _point_mapper(state)
-            for view in self.slice_trio.views:
-                view.set_point_of(point_of)
+        if key != "radial":
+            if key in ("slice", "pair"):
+                point_of = _point_mapper(state)
+                for view in trio.views:
+                    view.set_point_of(point_of)
             # Trace after the image has been painted, so the two never compete.
-            QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts: self.worker.request(
-                "slice-contours", lambda: _contour_job(p)))
+            QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts, k=key: self.worker.request(
+                f"{k}-contours", lambda: _contour_job(p)))
         self.statusBar().clearMessage()
 
     @Slot(str, str)
@@ -494,9 +529,13 @@ def _point_mapper(state: ViewState) -> Any:
     return point_of
 
 
-def _radial_inputs(state: ViewState) -> tuple[object, ...]:
-    return (state.left, state.radial, state.length_unit, state.orbital.subshell, state.compare)
-
-
-def _slice_inputs(state: ViewState) -> tuple[object, ...]:
-    return (state.left, state.slice, state.length_unit, state.orbital, state.compare)
+def _view_inputs(state: ViewState) -> tuple[object, ...]:
+    """The parts of the state the current view depends on (a change there recomputes it)."""
+    common = (state.left, state.length_unit)
+    if state.view == "radial":
+        return (*common, state.radial, state.orbital.subshell, state.compare)
+    if state.view == "slice":
+        return (*common, state.slice, state.orbital, state.compare)
+    if state.view == "pair":
+        return (*common, state.slice, state.pair)
+    return (*common, state.two_electron, state.slice.contours)

@@ -5,7 +5,7 @@ from __future__ import annotations
 import html
 import math
 from collections.abc import Callable
-from typing import Final
+from typing import Any, Final
 
 import numpy as np
 import pyqtgraph as pg
@@ -66,6 +66,8 @@ class SliceView(QWidget):
 
     hovered = Signal(float, float)
     contours_drawn = Signal()
+    #: (u, v) of a left click on the image, in the scene's length unit.
+    clicked = Signal(float, float)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -97,6 +99,11 @@ class SliceView(QWidget):
         self._frame.setPen(make_pen(AXIS_COLOUR, 1.0))
         self._frame.setZValue(6)
         self._plot.addItem(self._frame, ignoreBounds=True)
+        # A marked point (the pair view's reference electron).
+        self._marker = pg.ScatterPlotItem(size=13, symbol="o", pen=make_pen("#e6007e", 1.6),
+                                          brush=None)
+        self._marker.setZValue(15)
+        self._plot.addItem(self._marker, ignoreBounds=True)
         self._colour_bar = pg.ColorBarItem(values=(0.0, 1.0), colorMap=colour_map(True), width=16,
                                            interactive=False, colorMapMenu=False)
         # Inserted into the plot's own layout, so the bar spans exactly the image's height.
@@ -157,6 +164,7 @@ class SliceView(QWidget):
         self._contours_pending = False
 
         self._graphics.scene().sigMouseMoved.connect(self._on_mouse_moved)
+        self._graphics.scene().sigMouseClicked.connect(self._on_mouse_clicked)
         self._graphics.viewport().installEventFilter(self)
         self.setMinimumSize(360, 360)
         self._show_message()
@@ -215,6 +223,10 @@ class SliceView(QWidget):
             self._extent = extent
             self._plot.getViewBox().setRange(rect, padding=0.0)
         self._set_labels(scene)
+        if scene.marker is not None:
+            self._marker.setData([scene.marker[0]], [scene.marker[1]])
+        else:
+            self._marker.setData([], [])
         if self._external_contours and scene.contours is None:
             self._contour_timer.stop()
             self._contours_pending = False
@@ -444,6 +456,20 @@ class SliceView(QWidget):
             self._hide_cursor()
             return
         self._draw_cursor(u, v)
+
+    def _on_mouse_clicked(self, event: Any) -> None:
+        if self._scene is None or event.button() != Qt.MouseButton.LeftButton:
+            return
+        box = self._plot.getViewBox()
+        position = event.scenePos()
+        point = box.mapSceneToView(position)
+        if box.sceneBoundingRect().contains(position) and self._pixel(point.x(), point.y()) is not None:
+            self.clicked.emit(point.x(), point.y())
+
+    def marker_position(self) -> tuple[float, float] | None:
+        """(u, v) of the marked point on screen, or None."""
+        xs, ys = self._marker.getData()
+        return (float(xs[0]), float(ys[0])) if len(xs) else None
 
     def _on_mouse_moved(self, position: QPointF) -> None:
         if self._scene is None:

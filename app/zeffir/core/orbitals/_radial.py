@@ -6,7 +6,6 @@ from abc import ABC, abstractmethod
 
 import numpy as np
 import numpy.typing as npt
-from scipy import integrate, optimize
 
 __all__ = ["FloatArray", "RadialFunction"]
 
@@ -79,6 +78,8 @@ class RadialFunction(ABC):
         """
         if k <= -2 * self.l - 3:
             return float("inf")
+        from scipy import integrate  # lazily: keeps importing the core fast
+
         t = np.linspace(0.0, np.sqrt(self.extent()), 8001)[1:]
         r = t * t
         integrand = self(r) ** 2 * r ** (2 + k) * 2 * t
@@ -90,6 +91,8 @@ class RadialFunction(ABC):
 
     def nodes(self) -> FloatArray:
         """Radii (bohr) of the radial nodes, from sign changes refined by root finding."""
+        from scipy import optimize
+
         r = self.quadrature_grid(20001)[1:]
         values = self(r)
         where = np.nonzero(np.signbit(values[:-1]) != np.signbit(values[1:]))[0]
@@ -104,6 +107,8 @@ class RadialFunction(ABC):
         symmetric difference P(r(1+δ)) - P(r(1-δ)) — a zero of P' — which is far
         better conditioned than searching the flat top of D itself.
         """
+        from scipy import optimize
+
         r = self.quadrature_grid(20001)
         d = self.distribution(r)
         i = int(np.argmax(d))
@@ -120,6 +125,8 @@ class RadialFunction(ABC):
 
     def cumulative(self, r: npt.ArrayLike) -> FloatArray:
         """Q(r) = ∫₀^r D(r') dr', the fraction of one electron inside radius r."""
+        from scipy import integrate
+
         rr = np.asarray(r, dtype=float)
         top = max(float(np.max(rr, initial=0.0)), self.extent())
         t = np.linspace(0.0, np.sqrt(top), 16001)

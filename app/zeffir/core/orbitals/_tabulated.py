@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import numpy as np
 import numpy.typing as npt
-from scipy import integrate, interpolate
 
 from zeffir.core._errors import QuantumNumberError
 from zeffir.core.orbitals._radial import FloatArray, RadialFunction
@@ -58,6 +57,8 @@ class TabulatedRadial(RadialFunction):
     def __init__(
         self, n: int, l: int, r: npt.ArrayLike, values: npt.ArrayLike, normalise: bool = True
     ) -> None:
+        from scipy import integrate, interpolate  # lazily: keeps importing the core fast
+
         grid = np.asarray(r, dtype=float)
         vals = np.asarray(values, dtype=float)
         if grid.ndim != 1 or grid.shape != vals.shape or grid.size < 8:
@@ -99,6 +100,8 @@ class TabulatedRadial(RadialFunction):
         return np.asarray(self.over_r_l(rr) * rr**self.l, dtype=float)
 
     def extent(self, tail: float = 1e-14) -> float:
+        from scipy import integrate
+
         d = self._values**2 * self._r**3
         q = integrate.cumulative_simpson(d, x=self._x, initial=0.0)
         outside = q[-1] - q
@@ -108,6 +111,8 @@ class TabulatedRadial(RadialFunction):
     def expectation(self, k: int) -> float:
         if k <= -2 * self.l - 3:
             return float("inf")
+        from scipy import integrate
+
         return float(integrate.simpson(self._values**2 * self._r ** (3 + k), x=self._x))
 
     def quadrature_grid(self, points: int = 4001) -> FloatArray:

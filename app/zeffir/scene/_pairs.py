@@ -1,0 +1,258 @@
+"""The pair view and the two-electron view: what they draw, built from the core.
+
+The pair view shows, for a reference electron of spin σ at r1 and r2 on the slice
+plane: the density of the other same-spin electrons, the density of the
+opposite-spin electrons, and the exchange (Fermi) hole h_x^σ(r1; r2). The
+two-electron view shows singlet and triplet maps of a two-electron configuration
+and their difference. Both are returned as three slice scenes, so the window's
+slice views and the figure exporter draw them unchanged.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, replace
+from typing import TYPE_CHECKING
+
+import numpy as np
+from numpy.polynomial.legendre import leggauss
+
+from zeffir.core import OrbitalSet, ZeffirError
+from zeffir.core.orbitals import FloatArray
+from zeffir.scene._build import orbitals_for
+from zeffir.scene._compare import SliceComparison
+from zeffir.scene._quantities import length_factor, length_symbol, unit_text
+from zeffir.scene._slice import SliceScene, colour_scale, contour_levels, plane_of
+from zeffir.state import ViewState
+
+if TYPE_CHECKING:  # the pairs package is imported when a pair view is first computed
+    from zeffir.core.pairs import Determinant
+
+UP = 1  # spin up (α), as zeffir.core.pairs.UP
+
+__all__ = ["PairScenes", "TwoElectronScenes", "determinant_for", "hole_integral", "pair_scenes",
+           "two_electron_scenes"]
+
+
+@dataclass(frozen=True)
+class PairScenes(SliceComparison):
+    """Same-spin and opposite-spin densities (shared colour scale) and the exchange hole.
+
+    Attributes
+    ----------
+    reference : (float, float, float)
+        r1 in bohr.
+    spin : str
+        ``"up"`` or ``"down"``.
+    hole_integral : float
+        ∫ h_x^σ(r1; r2) d³r2 by quadrature over all space (−1 for any r1).
+    hole_depth : float
+        h_x^σ(r1; r1) = −ρ^σ(r1), in the display unit of density.
+    determinant : str
+        The determinant used, in the determinant syntax.
+    """
+
+    reference: tuple[float, float, float] = (0.0, 0.0, 0.0)
+    spin: str = "up"
+    hole_integral: float = float("nan")
+    hole_depth: float = float("nan")
+    determinant: str = ""
+
+
+@dataclass(frozen=True)
+class TwoElectronScenes(SliceComparison):
+    """Singlet and triplet maps (shared colour scale) and triplet − singlet."""
+
+    map_kind: str = "radial"
+
+
+def determinant_for(orbitals: OrbitalSet, text: str) -> Determinant:
+    """The Hund determinant, or the one ``text`` chooses (determinant syntax)."""
+    from zeffir.core.pairs import hund_determinant, parse_determinant
+
+    configuration = orbitals.configuration
+    return parse_determinant(configuration, text) if text.strip() else hund_determinant(configuration)
+
+
+def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: Determinant,
+                  radial_points: int = 96, polar_points: int = 32) -> float:
+    """∫ h_x^σ(r1; r2) d³r2 by a product quadrature centred on the nucleus.
+
+    Notes
+    -----
+    r = s·x/(1 − x) with x from Gauss–Legendre on (0, 1) (s the largest ⟨r⟩ of the
+    occupied subshells), Gauss–Legendre in cos θ and the trapezoid rule in φ
+    (2·``polar_points`` nodes, exact for trigonometric polynomials of the degrees
+    met here). The sum rule ∫ h_x = −1 holds for every r1 (Parr & Yang 1989, §2.4),
+    so the value shown is a check of the numbers on screen.
+    """
+    from zeffir.core.pairs import exchange_hole
+
+    scale = max(o.radial.expectation(1) for o in orbitals.orbitals)
+    x, wx = leggauss(radial_points)
+    x = 0.5 * (x + 1.0)
+    wx = 0.5 * wx
+    r = scale * x / (1.0 - x)
+    wr = scale * wx / (1.0 - x) ** 2 * r * r
+    t, wt = leggauss(polar_points)
+    phi = np.linspace(0.0, 2.0 * np.pi, 2 * polar_points, endpoint=False)
+    wphi = 2.0 * np.pi / phi.size
+    sin_t = np.sqrt(1.0 - t * t)
+    directions = np.stack(
+        [np.outer(sin_t, np.cos(phi)), np.outer(sin_t, np.sin(phi)), np.repeat(t[:, None], phi.size, 1)],
+        axis=-1,
+    ).reshape(-1, 3)
+    wdir = np.repeat(wt, phi.size) * wphi
+    points = (r[:, None, None] * directions[None, :, :]).reshape(-1, 3)
+    values = exchange_hole(orbitals, r1, points, spin, determinant).reshape(r.size, -1)
+    return float(np.sum(wr[:, None] * wdir[None, :] * values))
+
+
+def _image_scene(base: SliceScene, values: FloatArray, title: str, label: str,
+                 signed: bool, contours: int) -> SliceScene:
+    low, high = colour_scale(values, signed, False, robust=True)
+    return replace(
+        base, title=title, orbital="", values=values, image=values, signed=signed,
+        log_scale=False, colour_range=(low, high), levels=contour_levels(low, high, contours, signed),
+        zero_contour=signed, value_label=label, contours=None,
+    )
+
+
+def pair_scenes(state: ViewState) -> PairScenes:
+    """The pair view of ``state``: reference electron ``state.pair``, plane ``state.slice``."""
+    from zeffir.core.pairs import DOWN, exchange_hole_on_plane, pair_density_on_plane, spin_density
+
+    orbitals = orbitals_for(state.left)
+    configuration = orbitals.configuration
+    determinant = determinant_for(orbitals, state.pair.determinant)
+    spin = UP if state.pair.spin == "up" else DOWN
+    r1 = np.asarray(state.pair.reference, dtype=float)
+    rho = float(spin_density(orbitals, r1[None, :], spin, determinant)[0])
+    arrow = "↑" if spin == UP else "↓"
+    if not rho > 0:
+        raise ZeffirError(
+            f"no {state.pair.spin}-spin electron density at the reference point "
+            f"{tuple(state.pair.reference)} bohr (it lies on a node, or no electron of that spin is "
+            f"occupied): move the reference electron or change its spin"
+        )
+    plane = plane_of(state.slice)
+    unit = state.length_unit
+    density = length_factor(unit, -3.0)
+    same = pair_density_on_plane(orbitals, plane, r1, (spin, spin), determinant) / rho * density
+    other = pair_density_on_plane(orbitals, plane, r1, (spin, -spin), determinant) / rho * density
+    hole = exchange_hole_on_plane(orbitals, plane, r1, spin, determinant) * density
+    scale = length_factor(unit, 1.0)
+    where = ", ".join(f"{c * scale:g}" for c in state.pair.reference)
+    symbol = length_symbol(unit)
+    density_unit = unit_text(unit, -3.0)
+    base = SliceScene(
+        title="", spec=configuration.spec, model=state.left.model, orbital="", quantity="density",
+        plane_text=f"{_plane_words(state)}; reference electron {arrow} at ({where}) {symbol}",
+        axis_labels=_axes(state, symbol), value_label="", length_unit=unit, values=same, image=same,
+        coordinates=plane.coordinates() * scale, signed=False, log_scale=False, colour_range=(0.0, 1.0),
+        levels=(), zero_contour=False,
+    )
+    contours = state.slice.contours
+    left = _image_scene(base, same, f"{configuration.spec}: other {arrow} electrons",
+                        f"ρ₂{arrow}{arrow}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours)
+    opposite = "↓" if spin == UP else "↑"
+    right = _image_scene(base, other, f"{configuration.spec}: {opposite} electrons",
+                         f"ρ₂{arrow}{opposite}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours)
+    top = max(left.colour_range[1], right.colour_range[1])
+    levels = contour_levels(0.0, top, contours, False)
+    left = replace(left, colour_range=(0.0, top), levels=levels)
+    right = replace(right, colour_range=(0.0, top), levels=levels)
+    integral = hole_integral(orbitals, r1, spin, determinant)
+    depth = -rho * density
+    difference = _image_scene(
+        base, hole,
+        f"exchange hole: ∫ = {integral:.4f}, at r₁ {depth:.3g}",
+        f"hₓ{arrow}(r₁; r₂) / {density_unit}", True, contours,
+    )
+    from zeffir.core.pairs import format_determinant
+
+    marker = _marker_of(state, r1)
+    left, right, difference = (replace(s, marker=marker) for s in (left, right, difference))
+    return PairScenes(left, right, difference, reference=tuple(float(c) for c in r1),  # type: ignore[arg-type]
+                      spin=state.pair.spin, hole_integral=integral, hole_depth=depth,
+                      determinant=format_determinant(determinant))
+
+
+def two_electron_scenes(state: ViewState) -> TwoElectronScenes:
+    """Singlet and triplet maps of a two-electron configuration (``state.left``)."""
+    from zeffir.core.pairs import TwoElectronState
+
+    orbitals = orbitals_for(state.left)
+    configuration = orbitals.configuration
+    settings = state.two_electron
+    if configuration.n_electrons != 2:
+        raise ZeffirError(f"{configuration.spec}: the two-electron view needs exactly two electrons "
+                          f"(this has {configuration.n_electrons}); e.g. Li+ 1s1 2s1 or He 1s1 2p1")
+    if len(configuration.occupations) == 1:
+        sub = configuration.occupations[0][0]
+        raise ZeffirError(f"{configuration.spec}: both electrons share {sub.label}, so only the singlet "
+                          "exists; choose an excited configuration such as He 1s1 2s1")
+    singlet = TwoElectronState(orbitals, "singlet")
+    triplet = TwoElectronState(orbitals, "triplet")
+    top = settings.r_limit or 2.5 * max(o.radial.expectation(1) for o in orbitals.orbitals)
+    unit = state.length_unit
+    scale = length_factor(unit, 1.0)
+    symbol = length_symbol(unit)
+    k = settings.resolution
+    if settings.map == "radial":
+        r = np.linspace(0.0, top, k)
+        maps = [s.radial_map(r, r).T for s in (singlet, triplet)]  # [j, i] = (r2 = r[j], r1 = r[i])
+        maps = [m * length_factor(unit, -2.0) for m in maps]
+        coordinates = r * scale
+        label = f"P(r₁, r₂) / {unit_text(unit, -2.0)}"
+        axes = (f"r₁ / {symbol}", f"r₂ / {symbol}")
+        signed = False
+        words = "radial pair distribution (angles integrated)"
+    else:
+        s = np.linspace(-top, top, k)
+        maps = [np.real(st.collinear_map(s, s)).T * length_factor(unit, -3.0) for st in (singlet, triplet)]
+        coordinates = s * scale
+        label = f"ψ(s₁ẑ, s₂ẑ) / {unit_text(unit, -3.0)}"
+        axes = (f"s₁ / {symbol} (along z)", f"s₂ / {symbol} (along z)")
+        signed = True
+        words = "both electrons on the z axis"
+    subs = " ".join(sub.label for sub in singlet.subshells)
+    base = SliceScene(
+        title="", spec=configuration.spec, model=state.left.model, orbital=subs,
+        quantity="two-electron", plane_text=words, axis_labels=axes, value_label=label,
+        length_unit=unit, values=maps[0], image=maps[0], coordinates=coordinates, signed=signed,
+        log_scale=False, colour_range=(0.0, 1.0), levels=(), zero_contour=signed,
+    )
+    contours = state.slice.contours
+    one = _image_scene(base, maps[0], f"{configuration.spec}: singlet (S = 0)", label, signed, contours)
+    three = _image_scene(base, maps[1], f"{configuration.spec}: triplet (S = 1)", label, signed, contours)
+    low = min(one.colour_range[0], three.colour_range[0])
+    high = max(one.colour_range[1], three.colour_range[1])
+    levels = contour_levels(low, high, contours, signed)
+    one = replace(one, colour_range=(low, high), levels=levels)
+    three = replace(three, colour_range=(low, high), levels=levels)
+    delta = maps[1] - maps[0]
+    diff = _image_scene(base, delta, "triplet − singlet", f"Δ{label}", True, contours)
+    return TwoElectronScenes(one, three, diff, map_kind=settings.map)
+
+
+def _marker_of(state: ViewState, r1: FloatArray) -> tuple[float, float] | None:
+    """(u, v) of the reference electron in display units if it lies on the plane (within 1e-6 bohr)."""
+    normal, e1, e2 = plane_of(state.slice).basis()
+    if abs(float(r1 @ normal) - state.slice.offset) > 1e-6:
+        return None
+    scale = length_factor(state.length_unit, 1.0)
+    return float(r1 @ e1) * scale, float(r1 @ e2) * scale
+
+
+def _plane_words(state: ViewState) -> str:
+    s = state.slice
+    if s.plane in ("xy", "xz", "yz"):
+        axis = ({"x", "y", "z"} - set(s.plane)).pop()
+        return f"{s.plane} plane, {axis} = {s.offset:g} bohr"
+    return f"plane ⟂ ({s.normal[0]:g}, {s.normal[1]:g}, {s.normal[2]:g}), offset {s.offset:g} bohr"
+
+
+def _axes(state: ViewState, symbol: str) -> tuple[str, str]:
+    plane = state.slice.plane
+    names = (plane[0], plane[1]) if plane in ("xy", "xz", "yz") else ("u", "v")
+    return f"{names[0]} / {symbol}", f"{names[1]} / {symbol}"

@@ -1,0 +1,79 @@
+"""Pair and two-electron scenes: the panels are the core's quantities, with their sum rules."""
+
+import numpy as np
+import pytest
+
+from zeffir.core import build
+from zeffir.core.pairs import DOWN, UP, hund_determinant, spin_density_on_plane
+from zeffir.scene import pair_scenes, plane_of, two_electron_scenes
+from zeffir.state import PairSettings, SliceSettings, Source, TwoElectronSettings, ViewState
+
+
+def _pair_state(spec, reference, spin="up", determinant=""):
+    return ViewState(left=Source(spec), view="pair", slice=SliceSettings(extent=3.0, resolution=64),
+                     pair=PairSettings(reference, spin, determinant)).validated()
+
+
+@pytest.mark.parametrize(("spec", "reference", "spin"),
+                         [("Ne", (0.0, 0.0, 0.5), "up"), ("N", (0.3, 0.0, 1.1), "up"),
+                          ("O", (0.0, 0.0, 0.8), "down")])
+def test_panels_are_densities_and_hole_of_the_determinant(spec, reference, spin):
+    state = _pair_state(spec, reference, spin)
+    scenes = pair_scenes(state)
+    orbitals = build(spec)
+    sigma = UP if spin == "up" else DOWN
+    plane = plane_of(state.slice)
+    det = hund_determinant(orbitals.configuration)
+    same = spin_density_on_plane(orbitals, plane, sigma, det)
+    other = spin_density_on_plane(orbitals, plane, -sigma, det)
+    # Same-spin conditional density = ρσ(r2) + h_x(r1; r2); opposite spin is uncorrelated
+    # in a single determinant: ρ2^{σ,-σ}(r1, r2)/ρσ(r1) = ρ^{-σ}(r2) (Parr & Yang 1989, §2.4).
+    np.testing.assert_allclose(scenes.left.values - scenes.difference.values, same,
+                               rtol=0, atol=1e-9 * same.max())
+    np.testing.assert_allclose(scenes.right.values, other, rtol=0, atol=1e-9 * max(other.max(), 1e-300))
+    # Sum rule ∫ h_x d³r2 = −1 (quadrature described in scene._pairs.hole_integral).
+    assert scenes.hole_integral == pytest.approx(-1.0, abs=1e-3)
+    assert scenes.hole_depth < 0
+    assert scenes.left.colour_range == scenes.right.colour_range
+
+
+def test_reference_electron_on_a_node_is_refused_with_a_reason():
+    # ρ↓ of N (all three 2p electrons up) is spherical 1s²2s² and never zero, but no ↓
+    # electron occupies the reference spin-orbitals of a fully polarised H atom.
+    with pytest.raises(Exception, match="no down-spin electron density"):
+        pair_scenes(_pair_state("H", (0.0, 0.0, 1.0), "down"))
+
+
+def test_marker_sits_at_the_reference_on_its_plane():
+    scenes = pair_scenes(_pair_state("Ne", (0.4, 0.0, -0.7)))  # xz plane, y = 0
+    assert scenes.left.marker == pytest.approx((0.4, -0.7))
+
+
+@pytest.mark.parametrize("spec", ["Li+ 1s1 2s1", "He 1s1 2p1"])
+def test_two_electron_maps(spec):
+    state = ViewState(left=Source(spec, "hydrogenic"), view="two-electron",
+                      two_electron=TwoElectronSettings("radial", 30.0, 400)).validated()
+    scenes = two_electron_scenes(state)
+    r = scenes.left.coordinates
+    for panel in (scenes.left, scenes.right):
+        # ∫∫ P(r1, r2) dr1 dr2 = 1 (trapezoid rule on the displayed grid).
+        assert np.trapezoid(np.trapezoid(panel.values, r), r) == pytest.approx(1.0, abs=2e-3)
+    np.testing.assert_allclose(scenes.difference.values, scenes.right.values - scenes.left.values)
+    if spec.startswith("Li+"):
+        # Both s: the exchange term survives the angular integration, so the triplet
+        # radial map vanishes on r1 = r2.
+        assert np.abs(np.diag(scenes.right.values)).max() < 1e-12 * scenes.right.values.max()
+
+
+def test_collinear_triplet_vanishes_where_the_electrons_meet():
+    state = ViewState(left=Source("He 1s1 2p1", "hydrogenic"), view="two-electron",
+                      two_electron=TwoElectronSettings("collinear", 10.0, 101)).validated()
+    scenes = two_electron_scenes(state)
+    np.testing.assert_array_equal(np.diag(scenes.right.values), 0.0)
+    np.testing.assert_allclose(scenes.right.values, -scenes.right.values.T, atol=1e-15)
+
+
+def test_two_electrons_in_one_orbital_are_refused_with_a_reason():
+    state = ViewState(left=Source("He", "hydrogenic"), view="two-electron").validated()
+    with pytest.raises(Exception, match="only the singlet exists"):
+        two_electron_scenes(state)
