@@ -7,8 +7,9 @@ defaults of a running application.
 
 from __future__ import annotations
 
-import re
 from typing import Any, Final
+
+from zeffir.scene import LINE_COLOURS, subshell_colour
 
 __all__ = [
     "COLUMN_WIDTHS",
@@ -40,42 +41,14 @@ FONT_FAMILY: Final[tuple[str, ...]] = ("DejaVu Sans", "STIXGeneral")
 #: total, and without yellow, too pale on white), for subshell curves; the same colours
 #: in the same order as the window's radial view.
 #: Reference: M. Okabe and K. Ito, "Color Universal Design" (2008).
-LINE_COLOURS: Final[tuple[str, ...]] = (
-    "#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9",
-)
 
 #: Cycled after the colours, so that more subshells than colours stay distinct.
 LINE_STYLES: Final[tuple[str, ...]] = ("-", "--", "-.")
 
-_L_LETTERS: Final = "spdfghik"
-#: Subshells in filling order (n + l, then n): a subshell keeps its colour in every atom,
-#: on screen and in the figure.
-_FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
-    sorted(((n, l) for n in range(1, 9) for l in range(n)), key=lambda nl: (nl[0] + nl[1], nl[0]))
-)
-_SUBSHELL: Final = re.compile(r"^\s*(\d+)([spdfghik])")
-
-
 def subshell_line_style(subshell: str | None, fallback: int = 0) -> tuple[str, str]:
-    """Colour and matplotlib line style of a subshell's curve; the total (None) is solid black.
-
-    Parameters
-    ----------
-    subshell : str or None
-        A label such as ``"3d"``.
-    fallback : int
-        Index used when the label cannot be read as n and l.
-    """
-    if subshell is None:
-        return "#000000", "-"
-    index = fallback
-    match = _SUBSHELL.match(subshell)
-    if match:
-        nl = (int(match.group(1)), _L_LETTERS.index(match.group(2)))
-        if nl in _FILLING_ORDER:
-            index = _FILLING_ORDER.index(nl)
-    colour = LINE_COLOURS[index % len(LINE_COLOURS)]
-    return colour, LINE_STYLES[(index // len(LINE_COLOURS)) % len(LINE_STYLES)]
+    """Colour and matplotlib line style of a subshell's curve (rule in :func:`subshell_colour`)."""
+    colour, dash = subshell_colour(subshell, fallback)
+    return colour, LINE_STYLES[dash]
 
 
 def rc_parameters() -> dict[str, Any]:

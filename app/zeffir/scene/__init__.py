@@ -5,7 +5,7 @@ or data file holds exactly what is on screen.
 """
 
 from zeffir.scene._build import orbitals_for
-from zeffir.scene._colours import DIVERGING, SEQUENTIAL, colour_stops
+from zeffir.scene._colours import DIVERGING, LINE_COLOURS, SEQUENTIAL, colour_stops, subshell_colour
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
 from zeffir.scene._pairs import (
@@ -31,6 +31,7 @@ from zeffir.scene._slice import (
 __all__ = [
     "CONTOUR_POINTS",
     "DIVERGING",
+    "LINE_COLOURS",
     "LOG_DECADES",
     "QUANTITIES",
     "SEQUENTIAL",
@@ -60,6 +61,7 @@ __all__ = [
     "radial_range",
     "radial_scene",
     "slice_scene",
+    "subshell_colour",
     "trace_contours",
     "two_electron_scenes",
     "unit_text",

@@ -15,7 +15,7 @@ from __future__ import annotations
 
 from typing import Final
 
-__all__ = ["DIVERGING", "SEQUENTIAL", "colour_stops"]
+__all__ = ["DIVERGING", "LINE_COLOURS", "SEQUENTIAL", "colour_stops", "subshell_colour"]
 
 #: ColorBrewer RdBu, 11 classes, from negative (blue) to positive (red).
 DIVERGING: Final[tuple[str, ...]] = (
@@ -35,3 +35,37 @@ def colour_stops(signed: bool) -> tuple[tuple[float, ...], tuple[str, ...]]:
     colours = DIVERGING if signed else SEQUENTIAL
     n = len(colours) - 1
     return tuple(i / n for i in range(n + 1)), colours
+
+
+#: Okabe–Ito colour-blind-safe qualitative palette for subshell curves (the total is black).
+#: M. Okabe and K. Ito, "Color Universal Design" (2002/2008).
+LINE_COLOURS: Final[tuple[str, ...]] = (
+    "#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9",
+)
+
+_L_LETTERS: Final = "spdfghik"
+#: Subshells in filling order (n + l, then n): a subshell keeps its colour in every atom,
+#: on screen and in the figure.
+_FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
+    sorted(((n, l) for n in range(1, 9) for l in range(n)), key=lambda nl: (nl[0] + nl[1], nl[0]))
+)
+
+
+def subshell_colour(subshell: str | None, fallback: int = 0) -> tuple[str, int]:
+    """Colour of a subshell's curve and its dash index (0 solid, 1 dashed, 2 dash-dot).
+
+    The total (``None``) is black and solid. Beyond the palette's six colours the
+    colours repeat with the next dash style, so up to 18 subshells stay distinct.
+    Both the window and the exported figures use this rule.
+    """
+    if subshell is None:
+        return "#000000", 0
+    index = fallback
+    text = subshell.strip()
+    digits = "".join(ch for ch in text if ch.isdigit())
+    letter = text[len(digits):len(digits) + 1]
+    if digits and letter and letter in _L_LETTERS:
+        nl = (int(digits), _L_LETTERS.index(letter))
+        if nl in _FILLING_ORDER:
+            index = _FILLING_ORDER.index(nl)
+    return LINE_COLOURS[index % len(LINE_COLOURS)], (index // len(LINE_COLOURS)) % 3

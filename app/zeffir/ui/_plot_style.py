@@ -17,7 +17,6 @@ presentations that are friendly to colorblind people" (2002).
 from __future__ import annotations
 
 import math
-import re
 from typing import Final
 
 import numpy as np
@@ -25,7 +24,7 @@ import pyqtgraph as pg
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont, QPen
 
-from zeffir.scene import QUANTITIES, colour_stops
+from zeffir.scene import LINE_COLOURS, QUANTITIES, colour_stops, subshell_colour
 
 __all__ = [
     "AXIS_COLOUR",
@@ -51,7 +50,7 @@ pg.setConfigOptions(imageAxisOrder="row-major")
 
 #: Okabe–Ito colours for subshell curves. Its yellow (too pale on white) and its
 #: black (kept for the total) are left out.
-PALETTE: Final[tuple[str, ...]] = ("#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9")
+PALETTE: Final[tuple[str, ...]] = LINE_COLOURS
 TOTAL_COLOUR: Final = "#000000"
 AXIS_COLOUR: Final = "#262626"
 MUTED_TEXT: Final = "#5a5a5a"
@@ -65,35 +64,10 @@ TOTAL_WIDTH: Final = 2.6
 #: Beyond the palette's six colours, curves repeat them with these dash styles.
 _DASHES: Final = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DashDotLine)
 
-_L_LETTERS: Final = "spdfghik"
-#: Subshells in filling (n + l, then n) order; a subshell keeps its colour in every atom.
-_FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
-    sorted(((n, l) for n in range(1, 9) for l in range(n)), key=lambda nl: (nl[0] + nl[1], nl[0]))
-)
-_SUBSHELL = re.compile(r"^\s*(\d+)([spdfghik])")
-
-
 def subshell_style(subshell: str | None, fallback: int = 0) -> tuple[str, Qt.PenStyle]:
-    """Colour and dash style of a subshell's curve; the total (``None``) is black and solid.
-
-    Parameters
-    ----------
-    subshell : str or None
-        A label such as ``"3d"``.
-    fallback : int
-        Index used when the label cannot be read as n and l.
-    """
-    if subshell is None:
-        return TOTAL_COLOUR, Qt.PenStyle.SolidLine
-    match = _SUBSHELL.match(subshell)
-    index = fallback
-    if match:
-        nl = (int(match.group(1)), _L_LETTERS.index(match.group(2)))
-        if nl in _FILLING_ORDER:
-            index = _FILLING_ORDER.index(nl)
-    colour = PALETTE[index % len(PALETTE)]
-    dash = _DASHES[(index // len(PALETTE)) % len(_DASHES)]
-    return colour, dash
+    """Colour and dash style of a subshell's curve (rule in :func:`zeffir.scene.subshell_colour`)."""
+    colour, dash = subshell_colour(subshell, fallback)
+    return colour, _DASHES[dash]
 
 
 def make_pen(colour: str, width: float, style: Qt.PenStyle = Qt.PenStyle.SolidLine) -> QPen:
