@@ -26,6 +26,7 @@ def test_core_imports_without_qt_or_matplotlib():
         "    sys.modules[name] = None\n"
         "import zeffir.core, zeffir.core.config, zeffir.core.orbitals, zeffir.core.models\n"
         "import zeffir.core.density, zeffir.core.properties, zeffir.core.terms, zeffir.core.pairs\n"
+        "import zeffir.core.energy\n"
         "zeffir.core.build('Fe', 'clementi')\n"
         "bad = [m for m in sys.modules if m.split('.')[0] in ('PySide6', 'pyqtgraph', 'matplotlib')"
         " and sys.modules[m] is not None]\n"

@@ -16,10 +16,12 @@ from zeffir.core.models._slater_rules import (
     slater_n_star,
     slater_screening,
 )
+from zeffir.core.models._variational import VariationalModel
 
 register(HydrogenicModel())
 register(SlaterRulesModel())
 register(ClementiModel())
+register(VariationalModel())
 
 __all__ = [
     "DEFAULT_MODEL",
@@ -28,6 +30,7 @@ __all__ = [
     "HydrogenicModel",
     "Model",
     "SlaterRulesModel",
+    "VariationalModel",
     "build",
     "clementi_z_eff",
     "get_model",

@@ -1,0 +1,135 @@
+"""Total energies of an orbital set: the Hund determinant and the configuration average."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Literal
+
+from zeffir.core._errors import QuantumNumberError
+from zeffir.core.energy._expressions import (
+    EnergyExpression,
+    average_energy_expression,
+    hund_energy_expression,
+)
+from zeffir.core.energy._integrals import DEFAULT_POINTS, RadialIntegrals, radial_integrals
+from zeffir.core.orbitals import OrbitalSet
+
+__all__ = ["EnergyKind", "EnergyTerms", "average_energy", "configuration_energy", "evaluate_expression",
+           "hund_energy"]
+
+EnergyKind = Literal["hund", "average"]
+
+
+@dataclass(frozen=True, slots=True)
+class EnergyTerms:
+    """A total energy and its parts (hartree).
+
+    Attributes
+    ----------
+    kinetic : float
+        T, the kinetic energy.
+    nuclear : float
+        Electron–nucleus attraction.
+    repulsion : float
+        Electron–electron repulsion.
+    """
+
+    kinetic: float
+    nuclear: float
+    repulsion: float
+
+    @property
+    def total(self) -> float:
+        """E = T + V."""
+        return self.kinetic + self.nuclear + self.repulsion
+
+    @property
+    def potential(self) -> float:
+        """V, nuclear attraction plus electron repulsion."""
+        return self.nuclear + self.repulsion
+
+    @property
+    def virial_ratio(self) -> float:
+        """-V/T, which is 2 for exact eigenstates and for any energy optimal under scaling."""
+        return -self.potential / self.kinetic
+
+
+def evaluate_expression(expression: EnergyExpression, integrals: RadialIntegrals) -> EnergyTerms:
+    """Evaluate an energy expression with the radial integrals of an orbital set.
+
+    Parameters
+    ----------
+    expression : EnergyExpression
+        Coefficients of I(a), F^k and G^k.
+    integrals : RadialIntegrals
+        The radial integrals of the same subshells.
+
+    Returns
+    -------
+    EnergyTerms
+    """
+    kinetic = sum(w * integrals.kinetic(a) for a, w in expression.one_electron.items())
+    nuclear = sum(w * integrals.nuclear(a) for a, w in expression.one_electron.items())
+    repulsion = 0.0
+    for (kind, k, a, b), coefficient in expression.slater.items():
+        value = integrals.slater_f(k, a, b) if kind == "F" else integrals.slater_g(k, a, b)
+        repulsion += coefficient * value
+    return EnergyTerms(float(kinetic), float(nuclear), float(repulsion))
+
+
+def configuration_energy(orbitals: OrbitalSet, kind: EnergyKind = "hund",
+                         points: int = DEFAULT_POINTS) -> EnergyTerms:
+    """The energy of a configuration for an orbital set of any radial functions.
+
+    Parameters
+    ----------
+    orbitals : OrbitalSet
+        Normalised radial functions, one per occupied subshell.
+    kind : {"hund", "average"}
+        The Hund determinant (highest M_S, then M_L: the M_L = L, M_S = S component of
+        the Hund term) or the average over all determinants of the configuration.
+    points : int
+        Grid points in √r (see :func:`radial_integrals`).
+
+    Returns
+    -------
+    EnergyTerms
+        Kinetic, nuclear-attraction and repulsion energies (hartree) and their sum.
+
+    Notes
+    -----
+    Non-relativistic, point nucleus, no correlation. Orbitals of the same l are
+    Gram–Schmidt orthonormalised in order of n first (see :func:`radial_integrals`).
+    One-electron energy I(a) = -½ ∫ P(d²/dr² - l(l+1)/r²)P dr - Z ∫ P²/r dr; the
+    Slater integrals F^k, G^k; the coefficients from :func:`hund_energy_expression`
+    or :func:`average_energy_expression`.
+
+    References
+    ----------
+    Slater 1960, vol. I ch. 13–14, vol. II ch. 21; Condon & Shortley 1935, ch. 6–7;
+    Cowan 1981, ch. 6.
+
+    Examples
+    --------
+    >>> from zeffir.core import build
+    >>> e = configuration_energy(build("He", "hydrogenic"))  # ζ = 2: E = ζ² - 2Zζ + 5ζ/8
+    >>> abs(e.total - (4 - 8 + 1.25)) < 1e-9
+    True
+    """
+    if kind == "hund":
+        expression = hund_energy_expression(orbitals.configuration)
+    elif kind == "average":
+        expression = average_energy_expression(orbitals.configuration)
+    else:
+        raise QuantumNumberError(f"kind = {kind!r}: use 'hund' or 'average'")
+    return evaluate_expression(expression, radial_integrals(orbitals, points))
+
+
+def hund_energy(orbitals: OrbitalSet) -> float:
+    """Total energy (hartree) of the Hund determinant; see :func:`configuration_energy`."""
+    return configuration_energy(orbitals, "hund").total
+
+
+def average_energy(orbitals: OrbitalSet) -> float:
+    """Average energy E_av (hartree) of the configuration; see :func:`configuration_energy`."""
+    return configuration_energy(orbitals, "average").total

@@ -1,0 +1,472 @@
+"""Single-zeta Slater-type orbitals with exponents optimised for the Hund-determinant energy."""
+
+from __future__ import annotations
+
+import math
+from collections.abc import Callable
+from dataclasses import dataclass
+
+import numpy as np
+import numpy.typing as npt
+
+from zeffir.core._errors import ModelError
+from zeffir.core.config import Configuration, Subshell
+from zeffir.core.models._slater_rules import slater_screening
+from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
+
+__all__ = [
+    "OptimisationCancelled",
+    "OptimisationError",
+    "OptimisationState",
+    "OrthogonalisedSlaterRadial",
+    "VariationalModel",
+    "VariationalResult",
+    "mixing_pairs",
+    "optimise_exponents",
+    "orthogonalised_radials",
+]
+
+#: Largest |∂E/∂ln ζ| (hartree) accepted as a stationary point. Below it -V/T - 2 < ~1e-7.
+GRADIENT_TOLERANCE = 2e-7
+#: Step in ln ζ of the central finite differences (truncation ~1e-10, rounding ~1e-8 Eh).
+_STEP = 1e-5
+#: Step in ln ζ of the finite-difference Hessian used to polish the optimum.
+_HESSIAN_STEP = 1e-3
+#: Exponents are kept in [ZETA_MIN, ZETA_MAX_PER_Z · Z]; an optimum on a bound is a failure.
+ZETA_MIN = 1e-3
+ZETA_MAX_PER_Z = 10.0
+#: Largest orbital mixing angle searched (radians); reaching it is a failure.
+MAX_MIXING = 1.0
+
+
+class OrthogonalisedSlaterRadial(RadialFunction):
+    """A normalised combination of Slater-type functions of one l (a minimal-basis orbital).
+
+    Parameters
+    ----------
+    n, l : int
+        The subshell it stands for.
+    terms : sequence of (SlaterRadial, float)
+        The Slater-type functions and their coefficients; the combination must be
+        normalised (as :func:`orthogonalised_radials` makes it, orthonormal to the
+        other orbitals of its l).
+
+    Notes
+    -----
+    R(r) = Σ_j c_j N_j r^{n_j-1} e^{-ζ_j r}. The term of its own subshell has the
+    exponent the model reports; the others make it orthogonal to the other subshells
+    of its l and, for open shells, carry the optimised mixing.
+
+    References
+    ----------
+    Clementi & Raimondi, J. Chem. Phys. 38, 2686 (1963): orbitals expanded in a
+    minimal basis of Slater-type functions.
+    """
+
+    kind = "slater-type, orthogonalised"
+
+    def __init__(self, n: int, l: int, terms: tuple[tuple[SlaterRadial, float], ...]) -> None:
+        self.n, self.l = int(n), int(l)
+        self.terms = terms
+
+    def __repr__(self) -> str:
+        parts = ", ".join(f"{c:+.6g}·STO({s.n_star:g}, {s.zeta:.6g})" for s, c in self.terms)
+        return f"OrthogonalisedSlaterRadial(n={self.n}, l={self.l}, {parts})"
+
+    def shape_key(self) -> object:
+        return ("slater-sum", tuple((s.n_star, s.zeta, c) for s, c in self.terms))
+
+    def __call__(self, r: npt.ArrayLike) -> FloatArray:
+        rr = np.asarray(r, dtype=float)
+        return np.asarray(sum(c * s(rr) for s, c in self.terms), dtype=float)
+
+    def over_r_l(self, r: npt.ArrayLike) -> FloatArray:
+        rr = np.asarray(r, dtype=float)
+        return np.asarray(sum(c * s.over_r_l(rr) for s, c in self.terms), dtype=float)
+
+    def p_derivative(self, r: npt.ArrayLike) -> FloatArray:
+        """dP/dr in closed form: Σ_j c_j P_j (n_j/r - ζ_j)."""
+        rr = np.asarray(r, dtype=float)
+        out = np.zeros_like(rr)
+        for s, c in self.terms:
+            p = s.p(rr)
+            with np.errstate(divide="ignore", invalid="ignore"):
+                dp = np.where(rr > 0, p * (s.n_star / rr - s.zeta), 0.0)
+            if s.n_star == 1.0:
+                dp = np.where(rr == 0, s(np.zeros(1))[0], dp)
+            out += c * dp
+        return out
+
+    def extent(self, tail: float = 1e-14) -> float:
+        return max(s.extent(tail) for s, _ in self.terms)
+
+
+def _sto_overlap(a: SlaterRadial, b: SlaterRadial) -> float:
+    """∫ P_a P_b dr = N_a N_b Γ(n_a+n_b+1) / (ζ_a+ζ_b)^{n_a+n_b+1} (Slater 1960, App. 20)."""
+    power = a.n_star + b.n_star + 1
+    log_value = (
+        (a.n_star + 0.5) * math.log(2 * a.zeta) - 0.5 * math.lgamma(2 * a.n_star + 1)
+        + (b.n_star + 0.5) * math.log(2 * b.zeta) - 0.5 * math.lgamma(2 * b.n_star + 1)
+        + math.lgamma(power) - power * math.log(a.zeta + b.zeta)
+    )
+    return math.exp(log_value)
+
+
+def mixing_pairs(configuration: Configuration) -> tuple[tuple[int, int], ...]:
+    """Pairs (i, j) of same-l subshells, at least one open, whose mixing changes the energy.
+
+    Rotating two orthonormal orbitals of one l into each other leaves a determinant
+    unchanged when both subshells are full; otherwise the minimal-basis orbitals are
+    combinations of both Slater-type functions, with the mixing fixed by the energy.
+    """
+    occupations = configuration.occupations
+    out = []
+    for i, (a, wa) in enumerate(occupations):
+        for j in range(i + 1, len(occupations)):
+            b, wb = occupations[j]
+            if a.l == b.l and (wa < 2 * (2 * a.l + 1) or wb < 2 * (2 * b.l + 1)):
+                out.append((i, j))
+    return tuple(out)
+
+
+def orthogonalised_radials(subshells: tuple[Subshell, ...], zetas: tuple[float, ...],
+                           mixing: dict[tuple[int, int], float] | None = None,
+                           ) -> tuple[RadialFunction, ...]:
+    """Slater-type functions (n* = n) orthonormalised within each l, n upwards, then mixed.
+
+    Parameters
+    ----------
+    subshells : tuple of Subshell
+    zetas : tuple of float
+        One exponent per subshell (bohr⁻¹).
+    mixing : dict, optional
+        Rotation angle (radians) between orthonormal orbitals i and j of one l
+        (see :func:`mixing_pairs`); absent pairs are not rotated.
+
+    Returns
+    -------
+    tuple of RadialFunction
+        A :class:`SlaterRadial` where a subshell is its own function alone,
+        otherwise an :class:`OrthogonalisedSlaterRadial`.
+
+    Notes
+    -----
+    Gram–Schmidt in order is C = L⁻¹ with S = L Lᵀ (Cholesky), S the analytic
+    overlap matrix of the functions of one l; each angle θ then applies the
+    rotation φ_i → cos θ φ_i + sin θ φ_j, φ_j → cos θ φ_j - sin θ φ_i.
+    """
+    stos = [SlaterRadial(s.n, s.l, float(s.n), z) for s, z in zip(subshells, zetas, strict=True)]
+    out: list[RadialFunction] = list(stos)
+    angles = mixing or {}
+    for l in sorted({s.l for s in subshells}):
+        rows = sorted((i for i, s in enumerate(subshells) if s.l == l), key=lambda i: subshells[i].n)
+        if len(rows) < 2:
+            continue
+        overlap = np.array([[_sto_overlap(stos[i], stos[j]) for j in rows] for i in rows])
+        try:
+            lower = np.linalg.cholesky(overlap)
+        except np.linalg.LinAlgError:
+            raise ModelError(f"l = {l}: Slater-type functions linearly dependent at ζ = {zetas}") from None
+        coefficients = np.linalg.inv(lower)
+        for (i, j), theta in sorted(angles.items()):
+            if i in rows and j in rows:
+                a, b = rows.index(i), rows.index(j)
+                row_a, row_b = coefficients[a].copy(), coefficients[b].copy()
+                coefficients[a] = math.cos(theta) * row_a + math.sin(theta) * row_b
+                coefficients[b] = math.cos(theta) * row_b - math.sin(theta) * row_a
+        for a, i in enumerate(rows):
+            terms = tuple((stos[rows[b]], float(coefficients[a, b])) for b in range(len(rows))
+                          if coefficients[a, b] != 0.0)
+            if len(terms) > 1:
+                out[i] = OrthogonalisedSlaterRadial(subshells[i].n, l, terms)
+    return tuple(out)
+
+
+@dataclass(frozen=True, slots=True)
+class OptimisationState:
+    """Where an exponent optimisation stands.
+
+    Attributes
+    ----------
+    iteration : int
+        Completed iterations.
+    evaluations : int
+        Energy evaluations so far.
+    zetas : tuple of float
+        Current exponents (bohr⁻¹), in the order of the configuration's subshells.
+    energy : float
+        Hund-determinant energy at those exponents (hartree).
+    """
+
+    iteration: int
+    evaluations: int
+    zetas: tuple[float, ...]
+    energy: float
+
+
+class OptimisationError(ModelError):
+    """The exponent optimisation failed; ``state`` holds the last point reached."""
+
+    def __init__(self, message: str, state: OptimisationState | None) -> None:
+        super().__init__(message)
+        self.state = state
+
+
+class OptimisationCancelled(OptimisationError):
+    """``should_stop`` asked the optimisation to stop; ``state`` holds the last point."""
+
+
+@dataclass(frozen=True, slots=True)
+class VariationalResult:
+    """Optimised exponents and the energy they give.
+
+    Attributes
+    ----------
+    configuration : Configuration
+    zetas : tuple of float
+        Optimised ζ per subshell (bohr⁻¹).
+    mixing : dict
+        Optimised mixing angle (radians) of each pair from :func:`mixing_pairs`.
+    radials : tuple of RadialFunction
+        The orthonormalised radial functions built from them.
+    kinetic, potential : float
+        T and V at the optimum (hartree).
+    gradient : tuple of float
+        ∂E/∂ln ζ, then ∂E/∂θ, at the optimum (hartree), each below :data:`GRADIENT_TOLERANCE`.
+    state : OptimisationState
+        The final state (iterations, evaluations, energy).
+    """
+
+    configuration: Configuration
+    zetas: tuple[float, ...]
+    mixing: dict[tuple[int, int], float]
+    radials: tuple[RadialFunction, ...]
+    kinetic: float
+    potential: float
+    gradient: tuple[float, ...]
+    state: OptimisationState
+
+    @property
+    def energy(self) -> float:
+        """Total energy E = T + V (hartree)."""
+        return self.kinetic + self.potential
+
+    @property
+    def virial_ratio(self) -> float:
+        """-V/T; 2 at an optimum, since every ζ scaled together is one of the variations."""
+        return -self.potential / self.kinetic
+
+
+def _starting_zetas(configuration: Configuration) -> tuple[float, ...]:
+    # Slater's rules with n* = n, kept positive for loosely bound anions.
+    return tuple(max(configuration.Z - slater_screening(configuration, s), 0.1 * configuration.Z) / s.n
+                 for s, _ in configuration.occupations)
+
+
+def optimise_exponents(
+    configuration: Configuration,
+    progress: Callable[[OptimisationState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    points: int = 4001,
+) -> VariationalResult:
+    """Minimise the Hund-determinant energy over one Slater exponent per subshell.
+
+    Parameters
+    ----------
+    configuration : Configuration
+    progress : callable, optional
+        Called with an :class:`OptimisationState` after every iteration.
+    should_stop : callable, optional
+        Polled before every energy evaluation; when it returns True the run stops
+        with :class:`OptimisationCancelled`.
+    points : int
+        Grid points of the radial integrals (see :func:`zeffir.core.energy.radial_integrals`).
+
+    Returns
+    -------
+    VariationalResult
+
+    Raises
+    ------
+    OptimisationError
+        No stationary point (all |∂E/∂ln ζ|, |∂E/∂θ| <= GRADIENT_TOLERANCE) was
+        reached, or an exponent or angle ran to its bound (an electron not bound in this model). A subclass of
+        :class:`zeffir.core.ModelError`; its ``state`` is the last point reached.
+
+    Notes
+    -----
+    χ_a = N r^{n-1} e^{-ζ_a r} (n* = n, the Clementi–Raimondi form), one per subshell.
+    The orbitals of one l are the χ of that l Gram–Schmidt orthonormalised in order
+    of n, then rotated into each other by an angle θ for every pair of which one
+    subshell is open (:func:`mixing_pairs`). Together with the exponents this spans
+    the minimal-basis orbitals of Clementi & Raimondi (orbitals expanded in the
+    same-l χ); for pairs of closed subshells a rotation leaves the determinant, and
+    so the energy, unchanged and is omitted. L-BFGS-B minimises E over (ln ζ, θ) from
+    Slater's rules (with n* = n) and θ = 0, with central-difference gradients (step
+    1e-5) on a fixed grid, then Newton steps polish the optimum until every
+    derivative is below :data:`GRADIENT_TOLERANCE`. At the optimum -V/T = 2 (virial
+    theorem: scaling all ζ together is one of the variations).
+
+    References
+    ----------
+    E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963); J. C. Slater,
+    *Quantum Theory of Atomic Structure* (1960), vol. I, §6 (virial theorem).
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> result = optimise_exponents(parse_spec("He"))
+    >>> abs(result.zetas[0] - (2 - 5 / 16)) < 1e-6  # standard textbook result
+    True
+    """
+    from scipy import optimize
+
+    from zeffir.core.energy import evaluate_expression, hund_energy_expression, radial_integrals
+
+    subshells = tuple(s for s, _ in configuration.occupations)
+    pairs = mixing_pairs(configuration)
+    m = len(subshells)
+    expression = hund_energy_expression(configuration)
+    lower, upper = math.log(ZETA_MIN), math.log(ZETA_MAX_PER_Z * configuration.Z)
+    bounds = [(lower, upper)] * m + [(-MAX_MIXING, MAX_MIXING)] * len(pairs)
+    evaluations = 0
+    iteration = 0
+    last: OptimisationState | None = None
+
+    def split(x: FloatArray) -> tuple[tuple[float, ...], dict[tuple[int, int], float]]:
+        return tuple(float(z) for z in np.exp(x[:m])), dict(zip(pairs, map(float, x[m:]), strict=True))
+
+    def radials_at(x: FloatArray) -> tuple[RadialFunction, ...]:
+        zetas, mixing = split(x)
+        return orthogonalised_radials(subshells, zetas, mixing)
+
+    def energy_terms(x: FloatArray, r_max: float) -> tuple[float, float]:
+        nonlocal evaluations
+        if should_stop is not None and should_stop():
+            raise OptimisationCancelled("exponent optimisation cancelled", last)
+        zetas, _ = split(x)
+        orbitals = tuple(
+            SubshellOrbital(s, occ, radial, z, z * s.n, float(s.n), None)
+            for (s, occ), radial, z in zip(configuration.occupations, radials_at(x), zetas, strict=True)
+        )
+        integrals = radial_integrals(OrbitalSet(configuration, "variational", orbitals), points, r_max=r_max)
+        terms = evaluate_expression(expression, integrals)
+        evaluations += 1
+        return terms.kinetic, terms.potential
+
+    def gradient(x: FloatArray, r_max: float) -> FloatArray:
+        out = np.empty_like(x)
+        for i in range(x.size):
+            step = np.zeros_like(x)
+            step[i] = _STEP
+            out[i] = (sum(energy_terms(x + step, r_max)) - sum(energy_terms(x - step, r_max))) / (2 * _STEP)
+        return out
+
+    def grid_end(x: FloatArray) -> float:
+        return max(r.extent() for r in _plain_stos(subshells, np.exp(x[:m])))
+
+    x = np.concatenate([np.log(np.asarray(_starting_zetas(configuration))), np.zeros(len(pairs))])
+    message = ""
+    for _attempt in range(4):
+        # A grid fixed for the whole search, reaching well past the most diffuse function.
+        r_max = 1.5 * grid_end(x)
+
+        def fun(y: FloatArray, r_max: float = r_max) -> tuple[float, FloatArray]:
+            nonlocal last
+            energy = sum(energy_terms(y, r_max))
+            last = OptimisationState(iteration, evaluations, split(y)[0], energy)
+            return energy, gradient(y, r_max)
+
+        def callback(_xk: FloatArray) -> None:
+            nonlocal iteration
+            iteration += 1
+            if progress is not None and last is not None:
+                progress(OptimisationState(iteration, evaluations, last.zetas, last.energy))
+
+        found = optimize.minimize(
+            fun, x, jac=True, method="L-BFGS-B", bounds=bounds, callback=callback,
+            options={"maxiter": 500, "ftol": 1e-16, "gtol": GRADIENT_TOLERANCE / 4, "maxcor": 20},
+        )
+        x, message = np.asarray(found.x, dtype=float), str(found.message)
+        if grid_end(x) <= r_max:
+            break
+    # Polish with Newton steps (finite-difference Hessian): L-BFGS-B may stop on a flat
+    # energy slightly short of the gradient tolerance.
+    grad = gradient(x, r_max)
+    for _newton in range(6):
+        if np.all(np.abs(grad) <= GRADIENT_TOLERANCE):
+            break
+        hessian = np.empty((x.size, x.size))
+        for j in range(x.size):
+            step = np.zeros_like(x)
+            step[j] = _HESSIAN_STEP
+            hessian[:, j] = (gradient(x + step, r_max) - gradient(x - step, r_max)) / (2 * _HESSIAN_STEP)
+        hessian = 0.5 * (hessian + hessian.T)
+        if np.any(np.linalg.eigvalsh(hessian) <= 0):
+            break
+        x = np.clip(x - np.linalg.solve(hessian, grad), [lo for lo, _ in bounds], [hi for _, hi in bounds])
+        grad = gradient(x, r_max)
+        iteration += 1
+        if progress is not None:
+            progress(OptimisationState(iteration, evaluations, split(x)[0], sum(energy_terms(x, r_max))))
+    zetas, mixing = split(x)
+    kinetic, potential = energy_terms(x, r_max)
+    state = OptimisationState(iteration, evaluations, zetas, kinetic + potential)
+    at_bound = np.array([min(abs(v - lo), abs(v - hi)) < 1e-6 for v, (lo, hi) in zip(x, bounds, strict=True)])
+    if np.any(at_bound[:m]):
+        names = ", ".join(s.label for s, hit in zip(subshells, at_bound[:m], strict=True) if hit)
+        raise OptimisationError(f"{configuration.spec}: exponent of {names} ran to its bound "
+                                "(the electron is not bound with these functions)", state)
+    if np.any(at_bound[m:]):
+        raise OptimisationError(f"{configuration.spec}: an orbital mixing angle ran to its bound", state)
+    if not np.all(np.abs(grad) <= GRADIENT_TOLERANCE) or grid_end(x) > r_max:
+        raise OptimisationError(
+            f"{configuration.spec}: no stationary point after {iteration} iterations "
+            f"(largest |dE/dx| = {np.max(np.abs(grad)):.2e} Eh; {message})", state)
+    return VariationalResult(configuration, zetas, mixing, radials_at(x), kinetic, potential,
+                             tuple(float(g) for g in grad), state)
+
+
+def _plain_stos(subshells: tuple[Subshell, ...], zetas: npt.ArrayLike) -> tuple[SlaterRadial, ...]:
+    """The un-orthogonalised Slater-type functions, whose extents bound the grid."""
+    return tuple(SlaterRadial(s.n, s.l, float(s.n), float(z))
+                 for s, z in zip(subshells, np.asarray(zetas, dtype=float), strict=True))
+
+
+@dataclass(frozen=True)
+class VariationalModel:
+    """Slater-type orbitals (n* = n) with exponents minimising the Hund-determinant energy.
+
+    Notes
+    -----
+    One exponent per subshell, optimised for the configuration typed (ion or excited
+    configurations included) by :func:`optimise_exponents`. Orbitals of equal l are
+    orthonormal combinations of the Slater-type functions of that l (a minimal basis,
+    as Clementi & Raimondi's); the reported ζ is each subshell's own exponent and
+    Z_eff = ζn. The total energy is that of the Hund determinant (the M_L = L,
+    M_S = S component of the Hund term); no orbital energies are given. Heavier atoms
+    take seconds per optimisation (each energy evaluation sums all Slater integrals).
+
+    References
+    ----------
+    E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963); J. C. Slater,
+    *Quantum Theory of Atomic Structure* (McGraw-Hill, 1960).
+    """
+
+    name: str = "variational"
+    title: str = "variational single-zeta exponents"
+    reference: str = "Clementi & Raimondi 1963 (method); Slater 1960"
+
+    def build(self, configuration: Configuration) -> OrbitalSet:
+        result = optimise_exponents(configuration)
+        orbitals = []
+        for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
+                                            strict=True):
+            notes: tuple[str, ...] = ()
+            if isinstance(radial, OrthogonalisedSlaterRadial):
+                notes = (f"{sub.label}: a combination of this configuration's {sub.label[-1]}-type "
+                         "Slater functions (orthonormalised); ζ is the exponent of its own one",)
+            orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n), None,
+                                            notes))
+        return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
+                          notes=("total energy: Hund determinant, single-zeta Slater-type functions",))
