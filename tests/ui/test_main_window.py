@@ -218,3 +218,32 @@ def test_two_electron_view_shows_singlet_triplet_and_difference(window):
     singlet, triplet, difference = (v.image_data() for v in window.two_trio.views)
     np.testing.assert_allclose(difference, triplet - singlet)
     assert window.tabs.currentIndex() == 3
+
+
+def test_cancel_stops_a_long_model_build_in_the_worker(qtbot, tmp_path):
+    import time
+
+    from zeffir.core import ModelError, build
+    from zeffir.ui._worker import SceneWorker
+
+    worker = SceneWorker()
+    results = []
+    outcome: list[str] = []
+    worker.finished.connect(lambda key, result: results.append(result))
+
+    def job():
+        try:
+            build("Ar", "variational")  # a few seconds when not cancelled
+        except ModelError as error:
+            outcome.append(str(error))
+            raise
+        outcome.append("finished")
+
+    start = time.perf_counter()
+    worker.request("model", job)
+    qtbot.wait(200)
+    worker.cancel()
+    worker.shutdown()  # waits for the running job: it must stop at its next check
+    assert time.perf_counter() - start < 3.0
+    assert len(outcome) == 1 and "cancelled" in outcome[0]
+    assert results == []

@@ -38,13 +38,19 @@ class _Runner(QObject):
         if job is None:
             return
         ident, key, function = job
+        from zeffir.core._cancel import cancellation
+
         try:
-            result = function()
+            # Long core loops poll this: a superseded or cancelled request stops early.
+            with cancellation(lambda: not self._owner.is_current(key, ident)):
+                result = function()
         except Cancelled:
             return
         except Exception as error:  # reported to the window, never raised into Qt
             from zeffir.core import ZeffirError
 
+            if not self._owner.is_current(key, ident):
+                return  # stopped because it was cancelled or superseded: nothing to report
             detail = str(error) if isinstance(error, ZeffirError) else "".join(
                 traceback.format_exception_only(type(error), error)).strip()
             self.failed.emit(ident, key, detail)

@@ -9,6 +9,7 @@ from dataclasses import dataclass
 import numpy as np
 import numpy.typing as npt
 
+from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.models._slater_rules import slater_screening
@@ -342,7 +343,7 @@ def optimise_exponents(
 
     def energy_terms(x: FloatArray, r_max: float) -> tuple[float, float]:
         nonlocal evaluations
-        if should_stop is not None and should_stop():
+        if (should_stop is not None and should_stop()) or ambient_should_stop():
             raise OptimisationCancelled("exponent optimisation cancelled", last)
         zetas, _ = split(x)
         orbitals = tuple(
