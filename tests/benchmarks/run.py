@@ -81,6 +81,26 @@ def main() -> int:
     hole_plane = Plane.named("xz", extent=3.0, resolution=SIZE)
     hole = median_seconds(lambda: exchange_hole_on_plane(neon, hole_plane, (0.0, 0.0, 0.5)))
     report("exchange_hole_ne_512", hole / baseline, "x np.exp", "<= 4")
+
+    # (v) restricted Hartree–Fock wall times and energy errors. References: Ne, Ar, Xe as
+    # quoted from Koga et al., Int. J. Quantum Chem. 71, 491 (1999); Kr from memory.
+    from zeffir.core import parse_spec
+    from zeffir.core.models import get_model
+
+    published = {"Ne": -128.547098, "Ar": -526.817513, "Kr": -2752.054977, "Xe": -7232.13836}
+    goals = {"Ne": "<= 0.2", "Ar": "(no goal)", "Kr": "<= 1.5", "Xe": "<= 4"}
+    model = get_model("hartree-fock")
+    for symbol, reference in published.items():
+        configuration = parse_spec(symbol)
+        start = time.perf_counter()
+        try:
+            energy = model.build(configuration).total_energy
+        except Exception as error:  # report, do not stop the benchmark
+            print(f"hf_{symbol.lower()}: failed ({error})", flush=True)
+            continue
+        elapsed = time.perf_counter() - start
+        report(f"hf_{symbol.lower()}_wall", elapsed, "s", goals[symbol])
+        print(f"  hf_{symbol.lower()}_energy_error: {energy - reference:+.2e} Eh", flush=True)
     window_cases(baseline)
     return 0
 

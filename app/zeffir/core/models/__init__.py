@@ -1,6 +1,7 @@
 """Models: each turns a Configuration into an OrbitalSet. Adding a model is adding a module."""
 
 from zeffir.core.models._clementi import ClementiModel, clementi_z_eff
+from zeffir.core.models._hartree_fock import HartreeFockModel
 from zeffir.core.models._hydrogenic import HydrogenicModel
 from zeffir.core.models._registry import (
     DEFAULT_MODEL,
@@ -22,11 +23,13 @@ register(HydrogenicModel())
 register(SlaterRulesModel())
 register(ClementiModel())
 register(VariationalModel())
+register(HartreeFockModel())
 
 __all__ = [
     "DEFAULT_MODEL",
     "SLATER_N_STAR",
     "ClementiModel",
+    "HartreeFockModel",
     "HydrogenicModel",
     "Model",
     "SlaterRulesModel",
