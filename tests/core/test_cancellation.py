@@ -14,3 +14,8 @@ def test_variational_build_stops_when_asked():
     with cancellation(lambda: True), pytest.raises(ModelError, match="cancelled"):
         build("C", "variational")
     assert not should_stop()  # the check is gone after the block
+
+
+def test_hartree_fock_stops_when_asked():
+    with cancellation(lambda: True), pytest.raises(ModelError, match="cancelled"):
+        build("Ar", "hartree-fock")

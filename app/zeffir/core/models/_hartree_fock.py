@@ -9,6 +9,7 @@ from dataclasses import dataclass, field
 import numpy as np
 import numpy.typing as npt
 
+from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
@@ -474,7 +475,7 @@ def solve_closed_shell(
     energy_before = math.inf
     state: SCFState | None = None
     for iteration in range(1, max_iterations + 1):
-        if should_stop is not None and should_stop():
+        if (should_stop is not None and should_stop()) or ambient_should_stop():
             raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
         density = {l: coefficients[l] @ coefficients[l].T for l in ls}
         fock = fock_of(density)
