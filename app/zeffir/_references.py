@@ -29,6 +29,16 @@ REFERENCES: Final[tuple[str, ...]] = (
     "real solid harmonics.",
     "A. Unsöld, Ann. Phys. 387, 355 (1927) — closed subshells are spherical.",
     "C. Froese Fischer, The Hartree–Fock Method for Atoms (1977) — logarithmic radial grids.",
+    "J. C. Slater, Quantum Theory of Atomic Structure (1960); R. D. Cowan, The Theory of Atomic "
+    "Structure and Spectra (1981) — configuration energies, Slater integrals.",
+    "G. Racah, Phys. Rev. 62, 438 (1942) — 3j symbols.",
+    "C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951) — Hartree–Fock in a basis.",
+    "T. Koga et al., Int. J. Quantum Chem. 71, 491 (1999); C. F. Bunge et al., Phys. Rev. A 46, "
+    "3691 (1992) — Hartree–Fock reference energies.",
+    "P.-O. Löwdin, Phys. Rev. 97, 1474 (1955) — symmetric orthogonalisation.",
+    "R. G. Parr and W. Yang, Density-Functional Theory of Atoms and Molecules (1989); R. McWeeny, "
+    "Methods of Molecular Quantum Mechanics (1989) — pair densities and exchange holes.",
+    "F. Hund, Linienspektren (1927); Condon & Shortley (1935) — term symbols, Hund's rules.",
     "CODATA recommended values, via scipy.constants.",
     "C. A. Brewer, ColorBrewer (RdBu); S. van der Walt and N. Smith, viridis — colour maps.",
 )
