@@ -35,7 +35,7 @@ REFERENCES: Final[tuple[str, ...]] = (
     "C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951) — Hartree–Fock in a basis.",
     "T. Koga et al., Int. J. Quantum Chem. 71, 491 (1999); C. F. Bunge et al., Phys. Rev. A 46, "
     "3691 (1992) — Hartree–Fock reference energies.",
-    "P.-O. Löwdin, Phys. Rev. 97, 1474 (1955) — symmetric orthogonalisation.",
+    "P.-O. Löwdin, J. Chem. Phys. 18, 365 (1950) — symmetric orthogonalisation.",
     "R. G. Parr and W. Yang, Density-Functional Theory of Atoms and Molecules (1989); R. McWeeny, "
     "Methods of Molecular Quantum Mechanics (1989) — pair densities and exchange holes.",
     "F. Hund, Linienspektren (1927); Condon & Shortley (1935) — term symbols, Hund's rules.",
