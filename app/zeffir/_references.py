@@ -36,6 +36,8 @@ REFERENCES: Final[tuple[str, ...]] = (
     "T. Koga et al., Int. J. Quantum Chem. 71, 491 (1999); C. F. Bunge et al., Phys. Rev. A 46, "
     "3691 (1992) — Hartree–Fock reference energies.",
     "P.-O. Löwdin, J. Chem. Phys. 18, 365 (1950) — symmetric orthogonalisation.",
+    "S. J. Chakravorty et al., Phys. Rev. A 47, 3649 (1993); C. L. Pekeris, Phys. Rev. 115, 1216 "
+    "(1959) — exact non-relativistic energies (correlation energies).",
     "R. G. Parr and W. Yang, Density-Functional Theory of Atoms and Molecules (1989); R. McWeeny, "
     "Methods of Molecular Quantum Mechanics (1989) — pair densities and exchange holes.",
     "F. Hund, Linienspektren (1927); Condon & Shortley (1935) — term symbols, Hund's rules.",

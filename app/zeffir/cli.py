@@ -188,7 +188,20 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
             for row in rows
         ],
         "notes": list(orbitals.notes),
+        **_correlation_fields(configuration, model, orbitals.total_energy),
     }
+
+
+def _correlation_fields(configuration: Any, model: str, total: float | None) -> dict[str, Any]:
+    """Exact energy and E_corr = E_exact − E_HF for the hartree-fock model (null elsewhere)."""
+    from zeffir.core.energy import exact_energy
+
+    found = exact_energy(configuration) if model == "hartree-fock" and total is not None else None
+    if found is None:
+        return {"exact_energy_hartree": None, "correlation_energy_hartree": None}
+    value, source = found
+    return {"exact_energy_hartree": value, "exact_energy_source": source,
+            "correlation_energy_hartree": value - float(total)}  # type: ignore[arg-type]
 
 
 def _format_table(spec: str, model: str, units: str) -> str:
@@ -227,6 +240,15 @@ def _format_table(spec: str, model: str, units: str) -> str:
     lines.append("")
     lines.append(f"electrons: {configuration.n_electrons}   "
                  f"total energy: {num(orbitals.total_energy, energy)} {eu}")
+    extra = _correlation_fields(configuration, model, orbitals.total_energy)
+    if extra.get("exact_energy_hartree") is not None:
+        lines.append(
+            f"exact non-relativistic energy: {num(extra['exact_energy_hartree'], energy)} {eu} "
+            f"({extra['exact_energy_source']});   correlation energy E_exact − E_HF: "
+            f"{num(extra['correlation_energy_hartree'], energy, 5)} {eu}"
+        )
+    elif model == "hartree-fock":
+        lines.append("correlation energy: no published exact energy for this configuration")
     notes = [*orbitals.notes, *(note for row in rows for note in row.notes)]
     lines.extend(f"note: {note}" for note in dict.fromkeys(notes))
     return "\n".join(lines)

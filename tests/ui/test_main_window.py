@@ -247,3 +247,12 @@ def test_cancel_stops_a_long_model_build_in_the_worker(qtbot, tmp_path):
     assert time.perf_counter() - start < 3.0
     assert len(outcome) == 1 and "cancelled" in outcome[0]
     assert results == []
+
+
+def test_energy_line_shows_the_correlation_energy_for_hartree_fock(window):
+    window.model.update(left=Source("Ne", "hartree-fock"))
+    text = window.energy_line.text()
+    # E_exact (Chakravorty et al. 1993) − E_HF (≈ −128.547098) ≈ −0.3905 Eh.
+    assert "-128.547098" in text and "correlation energy -0.3905" in text
+    window.model.update(left=Source("Ne", "clementi"))
+    assert "no total energy" in window.energy_line.text()

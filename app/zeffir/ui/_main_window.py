@@ -15,6 +15,7 @@ from PySide6.QtWidgets import (
     QFileDialog,
     QFormLayout,
     QHBoxLayout,
+    QLabel,
     QMainWindow,
     QMessageBox,
     QProgressBar,
@@ -88,7 +89,26 @@ def _contour_job(scenes: list[Any]) -> Any:
 
 
 def _table_job(source: Source) -> Any:
-    return subshell_table(orbitals_for(source))
+    orbitals = orbitals_for(source)
+    return subshell_table(orbitals), _energy_summary(source, orbitals)
+
+
+def _energy_summary(source: Source, orbitals: Any) -> str:
+    """One line under the table: total energy, and E_corr for Hartree–Fock where published."""
+    from zeffir.core.energy import exact_energy
+
+    total = orbitals.total_energy
+    if total is None:
+        return f"{orbitals.configuration.spec}: the {source.model} model defines no total energy"
+    text = f"{orbitals.configuration.spec} ({source.model}): total energy {total:.6f} Eh"
+    if source.model == "hartree-fock":
+        found = exact_energy(orbitals.configuration)
+        if found is None:
+            text += "; no published exact energy for this configuration"
+        else:
+            text += (f"; exact non-relativistic {found[0]:.6f} Eh ({found[1]}); "
+                     f"correlation energy {found[0] - total:.5f} Eh")
+    return text
 
 
 class _Trio(QWidget):
@@ -206,9 +226,19 @@ class MainWindow(QMainWindow):
                                    "(e.g. Li+ 1s1 2s1) and their difference")
         self._trios = {"radial": self.radial_trio, "slice": self.slice_trio,
                        "pair": self.pair_trio, "two-electron": self.two_trio}
+        self.energy_line = QLabel()
+        self.energy_line.setToolTip("Total energy where the model defines one; for Hartree–Fock the "
+                                    "correlation energy E_exact − E_HF where an exact energy is published")
+        self.energy_line.setContentsMargins(6, 2, 6, 2)
+        table_box = QWidget()
+        table_layout = QVBoxLayout(table_box)
+        table_layout.setContentsMargins(0, 0, 0, 0)
+        table_layout.setSpacing(0)
+        table_layout.addWidget(self.table, 1)
+        table_layout.addWidget(self.energy_line)
         views_and_table = QSplitter(Qt.Orientation.Vertical)
         views_and_table.addWidget(self.tabs)
-        views_and_table.addWidget(self.table)
+        views_and_table.addWidget(table_box)
         views_and_table.setStretchFactor(0, 1)
         views_and_table.setSizes([760, 170])
         body = QSplitter(Qt.Orientation.Horizontal)
@@ -340,7 +370,9 @@ class MainWindow(QMainWindow):
     def _on_result(self, key: str, result: Any) -> None:
         state = self.model.state
         if key == "table":
-            self.table.show_rows(result, state.orbital.subshell, state.length_unit)
+            rows, summary = result
+            self.table.show_rows(rows, state.orbital.subshell, state.length_unit)
+            self.energy_line.setText(summary)
             return
         if key == "export":
             self.last_export = result

@@ -14,6 +14,7 @@ from zeffir.core.energy._energy import (
     evaluate_expression,
     hund_energy,
 )
+from zeffir.core.energy._exact import correlation_energy, exact_energy
 from zeffir.core.energy._expressions import (
     EnergyExpression,
     SlaterKey,
@@ -34,7 +35,9 @@ __all__ = [
     "average_energy_expression",
     "ck_coefficient",
     "configuration_energy",
+    "correlation_energy",
     "evaluate_expression",
+    "exact_energy",
     "hund_energy",
     "hund_energy_expression",
     "radial_integrals",
