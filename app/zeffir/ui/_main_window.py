@@ -189,6 +189,7 @@ class MainWindow(QMainWindow):
         self.worker.finished.connect(self._on_result)
         self.worker.failed.connect(self._on_failure)
         self.worker.busy.connect(self._on_busy)
+        self.worker.progress.connect(lambda message: self.statusBar().showMessage(message, 4000))
         self._show_state(self.model.state)
         self._request_all()
 

@@ -27,6 +27,7 @@ class Cancelled(Exception):
 class _Runner(QObject):
     done = Signal(int, str, object)
     failed = Signal(int, str, str)
+    progress = Signal(str)
 
     def __init__(self, owner: SceneWorker) -> None:
         super().__init__()
@@ -38,11 +39,13 @@ class _Runner(QObject):
         if job is None:
             return
         ident, key, function = job
-        from zeffir.core._cancel import cancellation
+        from zeffir.core._cancel import cancellation, progress_reporting
 
         try:
-            # Long core loops poll this: a superseded or cancelled request stops early.
-            with cancellation(lambda: not self._owner.is_current(key, ident)):
+            # Long core loops poll this: a superseded or cancelled request stops early,
+            # and their progress messages reach the window through a queued signal.
+            with cancellation(lambda: not self._owner.is_current(key, ident)), \
+                    progress_reporting(self.progress.emit):
                 result = function()
         except Cancelled:
             return
@@ -74,6 +77,8 @@ class SceneWorker(QObject):
     finished = Signal(str, object)
     failed = Signal(str, str)
     busy = Signal(bool)
+    #: A progress message from a long computation (e.g. an SCF iteration).
+    progress = Signal(str)
     _wake = Signal()
 
     def __init__(self, parent: QObject | None = None, synchronous: bool = False) -> None:
@@ -87,6 +92,7 @@ class SceneWorker(QObject):
         self._thread: QThread | None = None
         self._runner = _Runner(self)
         self._runner.done.connect(self._on_done)
+        self._runner.progress.connect(self.progress)
         self._runner.failed.connect(self._on_failed)
         if not synchronous:
             self._thread = QThread()

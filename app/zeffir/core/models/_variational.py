@@ -9,6 +9,7 @@ from dataclasses import dataclass
 import numpy as np
 import numpy.typing as npt
 
+from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ModelError
 from zeffir.core.config import Configuration, Subshell
@@ -383,6 +384,9 @@ def optimise_exponents(
             iteration += 1
             if progress is not None and last is not None:
                 progress(OptimisationState(iteration, evaluations, last.zetas, last.energy))
+            if last is not None:
+                ambient_report(f"{configuration.spec}: optimising exponents, step {iteration}, "
+                               f"E = {last.energy:.8f} Eh")
 
         found = optimize.minimize(
             fun, x, jac=True, method="L-BFGS-B", bounds=bounds, callback=callback,
