@@ -24,3 +24,11 @@ def test_only_neutral_ground_states_he_to_ar_have_exact_energies():
     assert exact_energy(parse_spec("Ne+")) is None
     assert exact_energy(parse_spec("He 1s1 2s1")) is None
     assert exact_energy(parse_spec("Kr")) is None
+
+
+def test_correlation_energy_of_open_shell_carbon():
+    # E_exact −37.8450 (Chakravorty et al. 1993) − E_HF(³P) −37.688619 (HF limit quoted from
+    # Koga et al. 1999) = −0.156381 Eh.
+    orbitals = build("C", "hartree-fock")
+    assert correlation_energy(orbitals.configuration, orbitals.total_energy) == pytest.approx(
+        -0.156381, abs=2e-6)

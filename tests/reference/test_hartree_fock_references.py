@@ -1,10 +1,10 @@
-"""Closed-shell Roothaan–Hartree–Fock against published Hartree–Fock energies."""
+"""Roothaan–Hartree–Fock (closed shells, one open s or p subshell) against published energies."""
 
 import pytest
 
 from zeffir.core import parse_spec
 from zeffir.core.config import Subshell
-from zeffir.core.models._hartree_fock import solve_closed_shell
+from zeffir.core.models._hartree_fock import solve, solve_closed_shell
 
 # Total energies (hartree). Source: Koga et al., Int. J. Quantum Chem. 71, 491 (1999)
 # (Slater-type Roothaan–Hartree–Fock), values as given to us by the project lead — these
@@ -64,3 +64,52 @@ def test_neon_orbital_energies(results, label, energy, tolerance):
     result = _solve(results, "Ne")
     n, l = int(label[0]), "spdf".index(label[1])
     assert result.orbital_energies[Subshell(n, l)] == pytest.approx(energy, abs=tolerance)
+
+
+# Open shells (one open s or p subshell; energy of the Hund ground term), hartree.
+# C, N, O: the numerical Hartree–Fock limits quoted to us in the issue (Koga et al., Int. J.
+# Quantum Chem. 71, 491 (1999); Bunge, Barrientos and Bunge, At. Data Nucl. Data Tables 53,
+# 113 (1993)). The others from memory (Bunge et al. 1993, numerical Hartree–Fock).
+OPEN_SHELL_ENERGIES = {
+    "Li": -7.432727,  # ²S, from memory
+    "B": -24.529061,  # ²P, from memory
+    "C": -37.688619,  # ³P, issue
+    "N": -54.400934,  # ⁴S, issue
+    "O": -74.809398,  # ³P, issue
+    "F": -99.409349,  # ²P, from memory
+    "Na": -161.858912,  # ²S, from memory
+    "Al": -241.876707,  # ²P, from memory
+    "P": -340.718781,  # ⁴S, from memory
+    "Cl": -459.482072,  # ²P, from memory
+}
+
+
+@pytest.mark.parametrize("spec", list(OPEN_SHELL_ENERGIES))
+def test_open_shell_energies_reach_the_hartree_fock_limit(spec):
+    # We were asked for 1e-5. Our differences from the rounded values are 4e-8 to 5e-7
+    # (C +4e-8, N -2e-7, O -5e-7, Li +7e-8); 1e-6 covers the ±5e-7 rounding of the
+    # table plus a basis error of the size seen for the closed shells.
+    result = solve(parse_spec(spec))
+    assert result.energy == pytest.approx(OPEN_SHELL_ENERGIES[spec], abs=1e-6)
+    # Virial ratio to about the basis error, as for closed shells (|-V/T - 2| <= 5e-9 here).
+    assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
+
+
+@pytest.mark.parametrize(
+    ("spec", "label", "energy"),
+    [
+        # From memory, 5 decimals (Clementi and Roetti, At. Data Nucl. Data Tables 14, 177
+        # (1974)): C 2p -0.43334, N 2p -0.56759, O 2p -0.63191, Li 2s -0.19632.
+        ("C", "2p", -0.43334),
+        ("N", "2p", -0.56759),
+        ("O", "2p", -0.63191),
+        ("Li", "2s", -0.19632),
+    ],
+)
+def test_open_shell_orbital_energies(spec, label, energy):
+    # The open subshell's ε is the diagonal element of its own Fock operator (per electron).
+    # 1e-5: the ±5e-6 rounding of 5 decimals plus our basis error (we get C -0.4333405,
+    # N -0.5675889, O -0.6319062, Li -0.1963228).
+    result = solve(parse_spec(spec))
+    n, l = int(label[0]), "spdf".index(label[1])
+    assert result.orbital_energies[Subshell(n, l)] == pytest.approx(energy, abs=1e-5)

@@ -1,4 +1,7 @@
-"""Restricted Hartree–Fock for closed-shell atoms: the Roothaan method in a Slater-type basis."""
+"""Restricted Hartree–Fock for atoms with closed shells and at most one open s or p subshell.
+
+The Roothaan method in a Slater-type basis.
+"""
 
 from __future__ import annotations
 
@@ -9,6 +12,7 @@ from dataclasses import dataclass, field
 import numpy as np
 import numpy.typing as npt
 
+from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ModelError
 from zeffir.core.config import Configuration, Subshell
@@ -23,7 +27,9 @@ __all__ = [
     "SCFState",
     "SlaterExpansionRadial",
     "default_basis",
+    "solve",
     "solve_closed_shell",
+    "solve_open_shell",
 ]
 
 #: Converged when the largest |FDS - SDF| element (orthogonal basis) is below this (hartree)...
@@ -276,7 +282,7 @@ class HartreeFockCancelled(HartreeFockError):
 
 @dataclass(frozen=True)
 class HartreeFockResult:
-    """A converged closed-shell Roothaan–Hartree–Fock solution.
+    """A converged Roothaan–Hartree–Fock solution (closed shells, or one open subshell).
 
     Attributes
     ----------
@@ -406,47 +412,14 @@ def solve_closed_shell(
     >>> abs(result.energy + 2.8616800) < 1e-6  # Koga et al. 1999
     True
     """
-    from zeffir.core.models._hf_integrals import (
-        kinetic_matrix,
-        nuclear_matrix,
-        overlap_matrix,
-        rk_tensor,
-    )
 
     layout = _closed_shell_layout(configuration)
     basis = basis or default_basis(configuration)
-    ls = sorted(layout)
-    Z = configuration.Z
-    weight = {l: 2.0 * (2 * l + 1) for l in ls}
-    zetas = {l: basis.zetas(l) for l in ls}
-    overlap = {l: overlap_matrix(l + 1, zetas[l]) for l in ls}
-    kinetic = {l: kinetic_matrix(l + 1, l, zetas[l]) for l in ls}
-    nuclear = {l: nuclear_matrix(l + 1, zetas[l], Z) for l in ls}
-    core = {l: kinetic[l] + nuclear[l] for l in ls}
-    # Coulomb J[λ, l'][p, q, r, s] = R⁰[pq|rs]; exchange K[λ, l'][p, q, r, s] = Σ_k c R^k[pr|sq]
-    # arranged so that K contracts with D^{l'}_rs like J does.
-    coulomb: dict[tuple[int, int], FloatArray] = {}
-    exchange: dict[tuple[int, int], FloatArray] = {}
-    for lam in ls:
-        for lp in ls:
-            za, zb = zetas[lam], zetas[lp]
-            coulomb[lam, lp] = rk_tensor(0, lam + 1, za, lam + 1, za, lp + 1, zb, lp + 1, zb)
-            k_sum = np.zeros_like(coulomb[lam, lp])
-            for k in range(abs(lam - lp), lam + lp + 1, 2):
-                # R^k[p r | s q]: p, r on electron 1 (λ, l'), s, q on electron 2 (l', λ).
-                tensor = rk_tensor(k, lam + 1, za, lp + 1, zb, lp + 1, zb, lam + 1, za)
-                k_sum += 0.5 * _exchange_weight(lam, k, lp) * tensor.transpose(0, 3, 1, 2)
-            exchange[lam, lp] = k_sum
-    transform: dict[int, FloatArray] = {}
-    dropped: dict[int, int] = {}
-    for l in ls:
-        values, vectors = np.linalg.eigh(overlap[l])
-        keep = values > LINEAR_DEPENDENCE * values[-1]
-        if int(np.count_nonzero(keep)) < layout[l]:
-            raise ModelError(f"{configuration.spec}: the l = {l} basis spans fewer functions "
-                             "than occupied orbitals")
-        transform[l] = vectors[:, keep] / np.sqrt(values[keep])
-        dropped[l] = int(np.count_nonzero(~keep))
+    setup = _setup(configuration, basis, layout)
+    ls, weight, zetas = setup.ls, setup.weight, setup.zetas
+    overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
+    coulomb, exchange = setup.coulomb, setup.exchange
+    transform, dropped = setup.transform, setup.dropped
 
     def diagonalise(fock: dict[int, FloatArray]) -> tuple[dict[int, FloatArray], dict[int, FloatArray]]:
         coefficients, energies = {}, {}
@@ -492,6 +465,8 @@ def solve_closed_shell(
         state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
         if progress is not None:
             progress(state)
+        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
+                       f"E = {energy:.8f} Eh, residual {residual:.1e}")
         if not (math.isfinite(energy) and math.isfinite(residual)):
             raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
                                    f"at iteration {iteration}", state)
@@ -524,10 +499,379 @@ def solve_closed_shell(
                              state.energy - kinetic_energy, state, dropped)
 
 
+def _open_shell_layout(configuration: Configuration) -> tuple[dict[int, int], Subshell, int]:
+    """Occupied orbitals per l, the open subshell and its occupancy; refuses what is not supported."""
+    partial = [(s, w) for s, w in configuration.occupations if w != 2 * (2 * s.l + 1)]
+    if not partial:
+        raise ModelError(f"{configuration.spec}: no open subshell (use solve_closed_shell)")
+    shown = " ".join(f"{s.label}{w}" for s, w in partial)
+    if len(partial) > 1:
+        raise ModelError(f"{configuration.spec}: several open subshells ({shown}) are not supported; "
+                         "restricted Hartree–Fock here treats closed shells plus one open s or p "
+                         "subshell (one radial function per subshell, Hund ground term)")
+    sub, occupancy = partial[0]
+    if sub.l > 1:
+        raise ModelError(f"{configuration.spec}: an open {'spdfghik'[sub.l]} subshell ({shown}) is not "
+                         "supported; restricted Hartree–Fock here treats closed shells plus one open "
+                         "s or p subshell (open d and f shells are untested and their aufbau order "
+                         "is not reliable)")
+    layout: dict[int, int] = {}
+    for l in sorted({s.l for s, _ in configuration.occupations}):
+        ns = sorted(s.n for s, _ in configuration.occupations if s.l == l)
+        if ns != list(range(l + 1, l + 1 + len(ns))):
+            raise ModelError(f"{configuration.spec}: the occupied {'spdfghik'[l]} subshells must be "
+                             f"the lowest ones (n = {l + 1}, {l + 2}, ...); excited closed shells "
+                             "are not supported")
+        layout[l] = len(ns)
+    if sub.n != sub.l + layout[sub.l]:
+        raise ModelError(f"{configuration.spec}: the open subshell {sub.label} must be the highest "
+                         f"occupied {'spdfghik'[sub.l]} subshell")
+    return layout, sub, int(occupancy)
+
+
+def solve_open_shell(
+    configuration: Configuration,
+    basis: EvenTemperedBasis | None = None,
+    progress: Callable[[SCFState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    max_iterations: int = MAX_ITERATIONS,
+) -> HartreeFockResult:
+    """Restricted Hartree–Fock for closed shells plus one open s or p subshell (Hund term).
+
+    Parameters
+    ----------
+    configuration : Configuration
+        Exactly one partly filled subshell, with l = 0 or 1, the highest occupied one of
+        its l; the occupied subshells of each l the lowest ones.
+    basis : EvenTemperedBasis, optional
+        Defaults to :func:`default_basis`.
+    progress : callable, optional
+        Called with an :class:`SCFState` after every iteration.
+    should_stop : callable, optional
+        Polled before every iteration; True stops the run with :class:`HartreeFockCancelled`.
+    max_iterations : int
+
+    Returns
+    -------
+    HartreeFockResult
+        The energy is that of the Hund ground term; the open subshell's orbital energy
+        is the diagonal element of its own Fock operator.
+
+    Raises
+    ------
+    ModelError
+        No open subshell, several, an open d or f subshell, or occupied subshells that
+        are not the lowest of their l.
+    HartreeFockError
+        No convergence within ``max_iterations`` (the message gives the last residual).
+
+    Notes
+    -----
+    Every subshell has one radial function, the same for both spins (restricted). With
+    D^l_c the density of the closed orbitals of l, D_o = φ_o φ_oᵀ that of the open
+    subshell o (symmetry l_o, w_o electrons) and w_l = 2(2l+1), the energy is
+
+    E = Σ_l w_l tr(D^l_c h^l) + ½ Σ_l w_l tr(D^l_c G^l[D_c]) + w_o tr(D_o (h + G^{l_o}[D_c]))
+        + Σ_k a_k Σ D_o,pq D_o,rs R^k[pq|rs],
+
+    G^λ[D]_pq = Σ_{l'} w_{l'} Σ_rs D^{l'}_rs (R⁰[pq|rs] - ½ Σ_k (λ k l'; 0 0 0)² R^k[pr|sq]),
+    and a_k the coefficients of F^k(o, o) in the energy of the Hund determinant
+    (:func:`zeffir.core.energy.hund_energy_expression`; a_0 = w_o(w_o-1)/2, and for p^q
+    the Hund determinant's energy is that of the ground LS term). A closed shell sees
+    the open one as spherical, so the closed–open interaction is the average one.
+
+    Varying D_c and D_o gives one Fock operator per class (per electron),
+    F_c = h + G[D_c] + w_o G_o, F_o = h + G[D_c] + (2/w_o) Σ_k a_k J^k[D_o], and the
+    orbital gradient: for orbitals i, j of one l, ∂E/∂κ_ji = 2(w_i F_i - w_j F_j)_ji.
+    Following Roothaan (1960), both are combined into one Hermitian operator R whose
+    eigenvectors are the orbitals at self-consistency: in the basis of the current
+    orbitals (closed c, open o, virtual v) its blocks are F_c everywhere except
+    R_oo = F_o, R_ov = F_o and R_co = (w_c F_c - w_o F_o)/(w_c - w_o); the off-diagonal
+    blocks are the orbital gradient divided by the weights, so they vanish exactly at
+    the stationary point. Pulay's DIIS extrapolates R from the gradient
+    Σ_classes (w_i/w_l) (F_i D_i S - S D_i F_i); orbitals are taken in order of
+    eigenvalue (closed shells below the open one, aufbau). Convergence criteria,
+    starting point and orthogonalisation are those of :func:`solve_closed_shell`. The
+    returned orbitals are those of the last iteration (closed ones made canonical
+    within each l), so E = ½ Σ_i w_i (h_ii + ε_i) holds to rounding.
+
+    References
+    ----------
+    C. C. J. Roothaan, Rev. Mod. Phys. 32, 179 (1960) (open shells of one symmetry);
+    C. C. J. Roothaan and P. S. Bagus, Methods Comput. Phys. 2, 47 (1963) (atomic
+    self-consistent fields in Slater-type bases); P. Pulay, Chem. Phys. Lett. 73, 393
+    (1980) (DIIS).
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> result = solve_open_shell(parse_spec("Li"))
+    >>> abs(result.energy + 7.432727) < 1e-6  # Bunge et al. 1993, from memory
+    True
+    """
+    from zeffir.core.energy import hund_energy_expression
+    from zeffir.core.models._hf_integrals import rk_tensor
+
+    layout, open_sub, w_o = _open_shell_layout(configuration)
+    basis = basis or default_basis(configuration)
+    setup = _setup(configuration, basis, layout)
+    ls, weight, zetas = setup.ls, setup.weight, setup.zetas
+    overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
+    coulomb, exchange, transform = setup.coulomb, setup.exchange, setup.transform
+    lo = open_sub.l
+    closed = {l: layout[l] - (1 if l == lo else 0) for l in ls}
+    w_c = weight[lo]
+    expression = hund_energy_expression(configuration)
+    self_terms = {k: expression.coefficient("F", k, open_sub, open_sub) for k in range(0, 2 * lo + 1, 2)}
+    za = zetas[lo]
+    self_tensors = {k: rk_tensor(k, lo + 1, za, lo + 1, za, lo + 1, za, lo + 1, za)
+                    for k, a in self_terms.items() if a != 0.0}
+
+    def split(coefficients: dict[int, FloatArray]) -> tuple[dict[int, FloatArray], FloatArray]:
+        d_c = {l: coefficients[l][:, : closed[l]] @ coefficients[l][:, : closed[l]].T for l in ls}
+        phi = coefficients[lo][:, closed[lo]]
+        return d_c, np.outer(phi, phi)
+
+    def fock_of(d_c: dict[int, FloatArray], d_o: FloatArray
+                ) -> tuple[dict[int, FloatArray], FloatArray, float]:
+        two = {}
+        for lam in ls:
+            g = np.zeros_like(core[lam])
+            for lp in ls:
+                g += weight[lp] * np.tensordot(coulomb[lam, lp] - exchange[lam, lp], d_c[lp],
+                                               axes=([2, 3], [0, 1]))
+            two[lam] = g
+        f_c = {}
+        for lam in ls:
+            g_open = np.tensordot(coulomb[lam, lo] - exchange[lam, lo], d_o, axes=([2, 3], [0, 1]))
+            f_c[lam] = core[lam] + two[lam] + w_o * g_open
+        self_part = sum((a * np.tensordot(self_tensors[k], d_o, axes=([2, 3], [0, 1]))
+                         for k, a in self_terms.items() if a != 0.0), np.zeros_like(d_o))
+        f_o = core[lo] + two[lo] + (2.0 / w_o) * self_part
+        energy = float(sum(weight[l] * np.sum(d_c[l] * (core[l] + 0.5 * two[l])) for l in ls)
+                       + w_o * np.sum(d_o * (core[lo] + two[lo])) + np.sum(d_o * self_part))
+        return f_c, f_o, energy
+
+    def effective(coefficients: dict[int, FloatArray], f_c: dict[int, FloatArray], f_o: FloatArray
+                  ) -> dict[int, FloatArray]:
+        """R of every l in its orthonormal basis (see Notes)."""
+        out = {}
+        for l in ls:
+            x = transform[l]
+            fc = x.T @ f_c[l] @ x
+            if l != lo:
+                out[l] = fc
+                continue
+            fo = x.T @ f_o @ x
+            fco = (w_c * fc - w_o * fo) / (w_c - w_o)
+            # Orbitals in the orthonormal basis: x⁺ C = xᵀ S C.
+            u = x.T @ overlap[l] @ coefficients[l]
+            u_c, u_o = u[:, : closed[l]], u[:, closed[l]: closed[l] + 1]
+            p_c, p_o = u_c @ u_c.T, u_o @ u_o.T
+            p_v = np.eye(fc.shape[0]) - p_c - p_o
+            r = p_c @ fc @ p_c + p_v @ fc @ p_v + p_c @ fc @ p_v + p_v @ fc @ p_c
+            r += p_o @ fo @ p_o + p_o @ fo @ p_v + p_v @ fo @ p_o
+            r += p_c @ fco @ p_o + p_o @ fco @ p_c
+            out[l] = 0.5 * (r + r.T)
+        return out
+
+    def diagonalise(matrices: dict[int, FloatArray]) -> tuple[dict[int, FloatArray], dict[int, FloatArray]]:
+        coefficients, energies = {}, {}
+        for l in ls:
+            eps, vectors = np.linalg.eigh(matrices[l])
+            coefficients[l] = transform[l] @ vectors[:, : layout[l]]
+            energies[l] = eps[: layout[l]]
+        return coefficients, energies
+
+    def canonical(coefficients: dict[int, FloatArray], f_c: dict[int, FloatArray], f_o: FloatArray
+                  ) -> tuple[dict[int, FloatArray], dict[int, FloatArray]]:
+        """Closed orbitals diagonalising F_c among themselves; ε_o = ⟨φ_o|F_o|φ_o⟩."""
+        out_c, out_e = {}, {}
+        for l in ls:
+            c = coefficients[l].copy()
+            eps, vectors = np.linalg.eigh(c[:, : closed[l]].T @ f_c[l] @ c[:, : closed[l]])
+            c[:, : closed[l]] = c[:, : closed[l]] @ vectors
+            if l == lo:
+                phi = c[:, closed[l]]
+                eps = np.append(eps, phi @ f_o @ phi)
+            out_c[l], out_e[l] = c, eps
+        return out_c, out_e
+
+    coefficients, energies = diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls})
+    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
+    energy_before = math.inf
+    state: SCFState | None = None
+    for iteration in range(1, max_iterations + 1):
+        if (should_stop is not None and should_stop()) or ambient_should_stop():
+            raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+        d_c, d_o = split(coefficients)
+        f_c, f_o, energy = fock_of(d_c, d_o)
+        gradients = []
+        for l in ls:
+            g = f_c[l] @ d_c[l] @ overlap[l]
+            if l == lo:
+                g = g + (w_o / w_c) * (f_o @ d_o @ overlap[l])
+            gradients.append((g - g.T).ravel())
+        error = np.concatenate(gradients)
+        residual = float(np.max(np.abs(error)))
+        change = energy - energy_before
+        state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
+        if progress is not None:
+            progress(state)
+        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
+                       f"E = {energy:.8f} Eh, residual {residual:.1e}")
+        if not (math.isfinite(energy) and math.isfinite(residual)):
+            raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
+                                   f"at iteration {iteration}", state)
+        if residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+            # Keep the orbitals whose energy this is: only the closed ones of each l are made
+            # canonical (a rotation among them changes nothing). A final diagonalisation of R
+            # would rotate closed into open orbitals by ~residual/Δε, which moves the
+            # one-electron energies of core orbitals at first order (~1e-8 Eh in Na).
+            coefficients, energies = canonical(coefficients, f_c, f_o)
+            break
+        energy_before = energy
+        matrices = effective(coefficients, f_c, f_o)
+        history.append((matrices, error))
+        del history[:-DIIS_SIZE]
+        coefficients, energies = diagonalise(_diis(history, ls))
+    else:
+        raise HartreeFockError(
+            f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
+            f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
+            f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
+    kinetic_energy = float(sum(weight[l] * np.sum(d_c[l] * kinetic[l]) for l in ls)
+                           + w_o * np.sum(d_o * kinetic[lo]))
+    _check_coefficients(configuration, coefficients, state)
+    orbital_energies = {}
+    for l in ls:
+        for i, n in enumerate(range(l + 1, l + 1 + layout[l])):
+            orbital_energies[Subshell(n, l)] = float(energies[l][i])
+    signed = {}
+    for l in ls:
+        c = coefficients[l].copy()
+        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
+        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
+                             state.energy - kinetic_energy, state, setup.dropped)
+
+
+def solve(
+    configuration: Configuration,
+    basis: EvenTemperedBasis | None = None,
+    progress: Callable[[SCFState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    max_iterations: int = MAX_ITERATIONS,
+) -> HartreeFockResult:
+    """:func:`solve_closed_shell` or, with one open subshell, :func:`solve_open_shell`.
+
+    Parameters
+    ----------
+    configuration : Configuration
+    basis, progress, should_stop, max_iterations
+        As for :func:`solve_closed_shell`.
+
+    Returns
+    -------
+    HartreeFockResult
+
+    Raises
+    ------
+    ModelError
+        A configuration neither solver supports; the message gives the reason.
+    HartreeFockError
+        No convergence.
+
+    References
+    ----------
+    Roothaan 1951; 1960.
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> round(solve(parse_spec("He")).energy, 5)
+    -2.86168
+    """
+    if all(w == 2 * (2 * s.l + 1) for s, w in configuration.occupations):
+        return solve_closed_shell(configuration, basis, progress, should_stop, max_iterations)
+    return solve_open_shell(configuration, basis, progress, should_stop, max_iterations)
+
+
+@dataclass(frozen=True)
+class _Setup:
+    """Basis-set matrices shared by the closed- and open-shell solvers."""
+
+    ls: list[int]
+    weight: dict[int, float]
+    zetas: dict[int, FloatArray]
+    overlap: dict[int, FloatArray]
+    kinetic: dict[int, FloatArray]
+    core: dict[int, FloatArray]
+    coulomb: dict[tuple[int, int], FloatArray]
+    exchange: dict[tuple[int, int], FloatArray]
+    transform: dict[int, FloatArray]
+    dropped: dict[int, int]
+
+
+def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int]) -> _Setup:
+    """One-electron matrices, Coulomb and exchange tensors and the orthogonalisation of each l."""
+    from zeffir.core.models._hf_integrals import (
+        kinetic_matrix,
+        nuclear_matrix,
+        overlap_matrix,
+        rk_tensor,
+    )
+
+    ls = sorted(layout)
+    Z = configuration.Z
+    weight = {l: 2.0 * (2 * l + 1) for l in ls}
+    zetas = {l: basis.zetas(l) for l in ls}
+    overlap = {l: overlap_matrix(l + 1, zetas[l]) for l in ls}
+    kinetic = {l: kinetic_matrix(l + 1, l, zetas[l]) for l in ls}
+    nuclear = {l: nuclear_matrix(l + 1, zetas[l], Z) for l in ls}
+    core = {l: kinetic[l] + nuclear[l] for l in ls}
+    # Coulomb J[λ, l'][p, q, r, s] = R⁰[pq|rs]; exchange K[λ, l'][p, q, r, s] = Σ_k c R^k[pr|sq]
+    # arranged so that K contracts with D^{l'}_rs like J does.
+    coulomb: dict[tuple[int, int], FloatArray] = {}
+    exchange: dict[tuple[int, int], FloatArray] = {}
+    for lam in ls:
+        for lp in ls:
+            za, zb = zetas[lam], zetas[lp]
+            coulomb[lam, lp] = rk_tensor(0, lam + 1, za, lam + 1, za, lp + 1, zb, lp + 1, zb)
+            k_sum = np.zeros_like(coulomb[lam, lp])
+            for k in range(abs(lam - lp), lam + lp + 1, 2):
+                # R^k[p r | s q]: p, r on electron 1 (λ, l'), s, q on electron 2 (l', λ).
+                tensor = rk_tensor(k, lam + 1, za, lp + 1, zb, lp + 1, zb, lam + 1, za)
+                k_sum += 0.5 * _exchange_weight(lam, k, lp) * tensor.transpose(0, 3, 1, 2)
+            exchange[lam, lp] = k_sum
+    transform: dict[int, FloatArray] = {}
+    dropped: dict[int, int] = {}
+    for l in ls:
+        values, vectors = np.linalg.eigh(overlap[l])
+        keep = values > LINEAR_DEPENDENCE * values[-1]
+        if int(np.count_nonzero(keep)) < layout[l]:
+            raise ModelError(f"{configuration.spec}: the l = {l} basis spans fewer functions "
+                             "than occupied orbitals")
+        transform[l] = vectors[:, keep] / np.sqrt(values[keep])
+        dropped[l] = int(np.count_nonzero(~keep))
+    return _Setup(ls, weight, zetas, overlap, kinetic, core, coulomb, exchange, transform, dropped)
+
+
 def _check_trustworthy(configuration: Configuration, coefficients: dict[int, FloatArray],
                        density: dict[int, FloatArray], core: dict[int, FloatArray],
                        weight: dict[int, float], state: SCFState) -> None:
     """Refuse a solution that rounding, not physics, may have shaped."""
+    _check_coefficients(configuration, coefficients, state)
+    # For closed shells the electron repulsion energy J - K/2 summed over pairs is positive.
+    one_electron = sum(weight[l] * float(np.sum(density[l] * core[l])) for l in density)
+    if not state.energy - one_electron > 0:
+        raise HartreeFockError(f"{configuration.spec}: negative electron repulsion energy "
+                               f"({state.energy - one_electron:.3g} Eh); the integrals lost precision", state)
+
+
+def _check_coefficients(configuration: Configuration, coefficients: dict[int, FloatArray],
+                        state: SCFState) -> None:
+    """Refuse orbitals whose coefficients cancel so much that rounding dominates."""
     sums = {l: float(np.max(np.sum(np.abs(c), axis=0))) for l, c in coefficients.items()}
     worst = max(sums, key=lambda l: sums[l])
     if sums[worst] > MAX_COEFFICIENT_SUM:
@@ -535,11 +879,6 @@ def _check_trustworthy(configuration: Configuration, coefficients: dict[int, Flo
             f"{configuration.spec}: an occupied l = {worst} orbital cancels coefficients up to "
             f"Σ|C| = {sums[worst]:.3g} (limit {MAX_COEFFICIENT_SUM:g}); the basis is numerically "
             "linearly dependent for it and the energy would be dominated by rounding", state)
-    # For closed shells the electron repulsion energy J - K/2 summed over pairs is positive.
-    one_electron = sum(weight[l] * float(np.sum(density[l] * core[l])) for l in density)
-    if not state.energy - one_electron > 0:
-        raise HartreeFockError(f"{configuration.spec}: negative electron repulsion energy "
-                               f"({state.energy - one_electron:.3g} Eh); the integrals lost precision", state)
 
 
 def _radial_values(l: int, zetas: FloatArray, coefficients: FloatArray, r: float) -> float:
@@ -574,31 +913,35 @@ def _diis(history: list[tuple[dict[int, FloatArray], FloatArray]], ls: list[int]
 
 @dataclass(frozen=True)
 class HartreeFockModel:
-    """Restricted Hartree–Fock orbitals of closed-shell atoms and ions (Roothaan method).
+    """Restricted Hartree–Fock orbitals of atoms and ions (Roothaan method).
 
     Notes
     -----
-    :func:`solve_closed_shell` in the :func:`default_basis`. Each orbital is a
+    :func:`solve_closed_shell` for closed shells and :func:`solve_open_shell` for closed
+    shells plus one open s or p subshell (the energy of the Hund ground term), in the
+    :func:`default_basis`. Each orbital is a
     :class:`SlaterExpansionRadial`; its energy is the canonical orbital energy ε
     (hartree) and the set's total energy the Hartree–Fock energy. ζ and Z_eff are
     effective values from ⟨1/r⟩ (a hydrogenic orbital of charge Z_eff has
     ⟨1/r⟩ = Z_eff/n²): Z_eff = n²⟨1/r⟩, ζ = Z_eff/n; n* is not defined (None).
-    Configurations with an open subshell raise :class:`zeffir.core.ModelError`.
+    Several open subshells, or an open d or f subshell, raise
+    :class:`zeffir.core.ModelError` naming the reason.
 
     References
     ----------
-    C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951); 32, 179 (1960); E. Clementi and
+    C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951); 32, 179 (1960); C. C. J. Roothaan
+    and P. S. Bagus, Methods Comput. Phys. 2, 47 (1963); E. Clementi and
     C. Roetti, At. Data Nucl. Data Tables 14, 177 (1974); T. Koga et al., Int. J. Quantum
     Chem. 71, 491 (1999) (the energies it reproduces).
     """
 
     name: str = "hartree-fock"
-    title: str = "restricted Hartree–Fock (closed shells)"
+    title: str = "restricted Hartree–Fock (closed shells, one open s or p shell)"
     reference: str = "Roothaan 1951, 1960 (method); Koga et al. 1999 (energies)"
 
     def build(self, configuration: Configuration) -> OrbitalSet:
         """Solve the Roothaan equations for ``configuration`` and return its orbitals."""
-        result = solve_closed_shell(configuration)
+        result = solve(configuration)
         orbitals = []
         for sub, occ in configuration.occupations:
             radial = SlaterExpansionRadial(sub.n, sub.l, sub.l + 1, result.basis.zetas(sub.l),
@@ -609,6 +952,8 @@ class HartreeFockModel:
                 (f"{sub.label}: ζ and Z_eff are effective values from <1/r> (Z_eff = n²<1/r>)",)))
         sizes = ", ".join(f"{count} {'spdfghik'[l]}"
                           for l, (_, _, count) in sorted(result.basis.sets.items()))
+        kind = ("closed shells" if all(w == 2 * (2 * s.l + 1) for s, w in configuration.occupations)
+                else "one open subshell, energy of the Hund ground term")
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
-                          notes=(f"restricted Hartree–Fock, even-tempered Slater-type basis ({sizes}); "
-                                 f"virial ratio -V/T = {result.virial_ratio:.9f}",))
+                          notes=(f"restricted Hartree–Fock ({kind}), even-tempered Slater-type basis "
+                                 f"({sizes}); virial ratio -V/T = {result.virial_ratio:.9f}",))
