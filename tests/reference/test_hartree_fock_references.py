@@ -50,6 +50,42 @@ def test_virial_ratio_is_two(results, spec):
     assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
 
 
+# Heavier closed shells with occupied d subshells (hartree), each with the tolerance we
+# test it at. Kr: from memory (numerical Hartree–Fock limit, Bunge, Barrientos and Bunge,
+# At. Data Nucl. Data Tables 53, 113 (1993)), 6 decimals; we get -2752.0549770 (+4e-8),
+# so 1e-6 covers the ±5e-7 rounding plus a basis error of the size seen for He–Ar.
+# Xe: Koga et al., Int. J. Quantum Chem. 71, 491 (1999), as quoted in the issue, 5
+# decimals (±5e-6 from rounding); we get -7232.1383604 (-4e-7), so 6e-6 is the rounding
+# plus 1e-6. From memory the numerical limit is -7232.138364 (Bunge et al. 1993), 4e-6
+# below us, also inside that tolerance. With the former p and d ratio β = 1.4 the
+# errors were +6e-6 (Kr) and +6e-5 (Xe): both tests fail with that basis.
+# Sr: from memory (Bunge et al. 1993), 6 decimals; we get -3131.5456859 (+1e-7). Its
+# iteration diverged from the bare-nucleus start in the dense basis before the start in
+# the reduced basis (START_LINEAR_DEPENDENCE) was added.
+HEAVY_CLOSED_SHELLS = {
+    "Kr": (-2752.054977, 1e-6),
+    "Sr": (-3131.545686, 1e-6),
+    "Xe": (-7232.13836, 6e-6),
+}
+
+
+@pytest.fixture(scope="module")
+def heavy_results():
+    # Xe is the slowest Hartree–Fock run of the suite (about 1.5–3 s); solved once here.
+    return {spec: solve_closed_shell(parse_spec(spec)) for spec in HEAVY_CLOSED_SHELLS}
+
+
+@pytest.mark.parametrize("spec", list(HEAVY_CLOSED_SHELLS))
+def test_heavier_closed_shells_reach_the_hartree_fock_limit(heavy_results, spec):
+    energy, tolerance = HEAVY_CLOSED_SHELLS[spec]
+    result = heavy_results[spec]
+    assert result.energy == pytest.approx(energy, abs=tolerance)
+    # -V/T - 2: Kr 2e-9, Sr 4e-10, Xe 8e-9; tested at 5e-8 like the lighter atoms.
+    assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
+    # Nothing dropped as linearly dependent (smallest overlap eigenvalue ~3e-10).
+    assert sum(result.dropped.values()) == 0
+
+
 @pytest.mark.parametrize(
     ("label", "energy", "tolerance"),
     [

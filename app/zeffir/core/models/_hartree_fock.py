@@ -28,6 +28,7 @@ __all__ = [
     "SlaterExpansionRadial",
     "default_basis",
     "solve",
+    "solve_average",
     "solve_closed_shell",
     "solve_open_shell",
 ]
@@ -38,12 +39,20 @@ COMMUTATOR_TOLERANCE = 1e-9
 ENERGY_TOLERANCE = 1e-11
 #: Overlap eigenvalues below this (relative to the largest) are dropped as linear dependence.
 LINEAR_DEPENDENCE = 1e-11
+#: The iteration starts in the basis without the combinations whose overlap eigenvalue is
+#: below this (relative), and switches to the full basis once the orbital gradient is
+#: below :data:`START_RESIDUAL`: far from self-consistency, near-null combinations with
+#: strongly cancelling coefficients can turn rounding into wild Fock matrices (Sr, Cs
+#: and Ba diverged from the bare-nucleus start without it). Only for atoms with d
+#: electrons; lighter ones iterate in the full basis from the start.
+START_LINEAR_DEPENDENCE = 1e-8
+START_RESIDUAL = 1e-2
 MAX_ITERATIONS = 200
 #: Number of previous Fock matrices DIIS extrapolates from.
 DIIS_SIZE = 8
 #: Largest Σ_p |C_p| of an occupied orbital accepted. Rounding errors of the integrals
 #: (~1e-16 relative) enter the energy multiplied by about (Σ|C|)⁴; physical orbitals
-#: in the default bases have Σ|C| < 10 up to Kr (about 40 for the 5s of Xe); larger
+#: in the default bases have Σ|C| < 16 up to Kr (about 42 for the 5s of Xe); larger
 #: cancellations signal a numerically linearly dependent basis.
 MAX_COEFFICIENT_SUM = 100.0
 
@@ -216,16 +225,25 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
 
     Notes
     -----
-    s functions: ζ from 0.25 to 8Z with ratio β = 1.35; p, d, ... functions: from 0.25
-    to 3Z with β = 1.4. The
-    smallest exponent lies below the decay constant √(2|ε|) of any valence orbital of a
-    neutral atom, the largest well beyond the 1s cusp (ζ ≈ Z). With these choices the
-    He–Ar closed shells land within 1e-6 Eh of the Hartree–Fock limit
-    (tests/reference/test_hartree_fock_references.py) with 15–23 s and 16–17 p
-    functions; the smallest overlap eigenvalue stays above 1e-10, so canonical
-    orthogonalisation drops nothing. Starting lower does not help anions: with
-    ζ = 0.1 the H⁻ iteration oscillates between the compact orbital and an almost
-    free one, while from 0.25 (or 0.15) it converges to the same energy to 1e-12 Eh.
+    s functions: ζ from 0.25 to 8Z with ratio β = 1.35; p functions: from 0.25 to 3Z
+    with β = 1.4, or β = 1.3 when d subshells are occupied; d (and higher) functions:
+    from 0.25 to Z with β = 1.3. The smallest exponent lies below the decay constant
+    √(2|ε|) of any valence orbital of a neutral atom, the largest s exponent well beyond
+    the 1s cusp (ζ ≈ Z); the innermost d orbital (3d, ζ ≲ Z/3) needs no functions beyond
+    Z, and stopping there keeps the d set small enough to be dense. The dense p and d
+    sets matter from Kr on: with β = 1.4 for both (d up to 3Z), Kr lies 6e-6 Eh and Xe
+    6e-5 Eh above the Hartree–Fock limit, with these sets within 1e-6 Eh; He–Ar land
+    within 1e-6 Eh with the β = 1.4 p set, which keeps them fast (Ne 0.13 s rather than
+    0.25 s with β = 1.3) (tests/reference/test_hartree_fock_references.py). Sizes:
+    15–26 s, 16–26 p and 20–22 d functions. The smallest overlap eigenvalue stays above
+    1e-10, so canonical orthogonalisation drops nothing. Denser or wider sets are not
+    automatically better: d functions up to 3Z with β = 1.3 bring Kr's smallest d
+    overlap eigenvalue to ~4e-9, and from the bare-nucleus start its iteration diverged
+    (rounding, amplified by strongly cancelling coefficients, drove orbitals into the
+    near-null space; see :data:`START_LINEAR_DEPENDENCE`). Starting lower
+    does not help anions: with ζ = 0.1 the H⁻ iteration oscillates between the compact
+    orbital and an almost free one, while from 0.25 (or 0.15) it converges to the same
+    energy to 1e-12 Eh.
 
     References
     ----------
@@ -236,12 +254,23 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     >>> from zeffir.core import parse_spec
     >>> default_basis(parse_spec("Ne")).sets[1][2]
     16
+    >>> default_basis(parse_spec("Kr")).sets[1][1:], default_basis(parse_spec("Kr")).sets[2][1:]
+    ((1.3, 25), (1.3, 20))
     """
     Z = configuration.Z
     alpha = 0.25
     sets: dict[int, tuple[float, float, int]] = {}
-    for l in sorted({s.l for s, _ in configuration.occupations}):
-        top, beta = (8.0 * Z, 1.35) if l == 0 else (3.0 * Z, 1.4)
+    ls = sorted({s.l for s, _ in configuration.occupations})
+    # Atoms with d electrons need denser p and d sets (see Notes); lighter ones keep the
+    # cheaper β = 1.4 p set, which already reaches 1e-6 Eh.
+    with_d = max(ls) >= 2
+    for l in ls:
+        if l == 0:
+            top, beta = 8.0 * Z, 1.35
+        elif l == 1:
+            top, beta = 3.0 * Z, (1.3 if with_d else 1.4)
+        else:
+            top, beta = 1.0 * Z, 1.3
         count = max(4, math.ceil(math.log(top / alpha) / math.log(beta)) + 1)
         sets[l] = (alpha, beta, count)
     return EvenTemperedBasis(sets)
@@ -395,7 +424,13 @@ def solve_closed_shell(
     (:mod:`zeffir.core.models._hf_integrals`). The basis of each l is canonically
     orthogonalised (X = U s^{-1/2}, eigenvalues of S below 1e-11 of the largest
     dropped). The start is the bare-nucleus Hamiltonian; Pulay's DIIS extrapolates the
-    Fock matrices from the orbital gradients FDS - SDF. Convergence: largest gradient
+    Fock matrices from the orbital gradients FDS - SDF. With d electrons, the first
+    iterations run in the basis without the combinations of overlap eigenvalue below
+    1e-8 of the largest (gradient projected on the kept span), until the gradient is below
+    :data:`START_RESIDUAL`; then the full basis takes over with a fresh DIIS history.
+    Without this the early, far-from-self-consistent Fock matrices of Sr, Cs or Ba
+    drive orbitals into near-null combinations whose cancelling coefficients magnify
+    rounding, and the iteration diverges. Convergence: largest gradient
     element below :data:`COMMUTATOR_TOLERANCE` and energy change below
     :data:`ENERGY_TOLERANCE`.
 
@@ -419,7 +454,10 @@ def solve_closed_shell(
     ls, weight, zetas = setup.ls, setup.weight, setup.zetas
     overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
     coulomb, exchange = setup.coulomb, setup.exchange
-    transform, dropped = setup.transform, setup.dropped
+    dropped = setup.dropped
+    # Start in the reduced basis; swapped (in place, for the closures) for the full one.
+    transform, kept = dict(setup.start_transform), dict(setup.start_kept)
+    starting = bool(setup.start_kept)
 
     def diagonalise(fock: dict[int, FloatArray]) -> tuple[dict[int, FloatArray], dict[int, FloatArray]]:
         coefficients, energies = {}, {}
@@ -458,7 +496,7 @@ def solve_closed_shell(
             # In the normalised basis itself: the orthonormalised one would amplify rounding
             # by 1/s_min (up to ~1e8 for dense even-tempered sets) and stall the test.
             g = fock[l] @ density[l] @ overlap[l]
-            gradients.append((g - g.T).ravel())
+            gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
         residual = float(np.max(np.abs(error)))
         change = energy - energy_before
@@ -470,6 +508,12 @@ def solve_closed_shell(
         if not (math.isfinite(energy) and math.isfinite(residual)):
             raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
                                    f"at iteration {iteration}", state)
+        if starting and residual < START_RESIDUAL:
+            _switch_to_full_basis(setup, transform, kept, history)
+            starting = False
+            energy_before = energy
+            coefficients, energies = diagonalise(fock)
+            continue
         if residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
             # Orbitals and energies of the converged Fock matrix itself (not an extrapolation).
             coefficients, energies = diagonalise(fock)
@@ -617,7 +661,9 @@ def solve_open_shell(
     setup = _setup(configuration, basis, layout)
     ls, weight, zetas = setup.ls, setup.weight, setup.zetas
     overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
-    coulomb, exchange, transform = setup.coulomb, setup.exchange, setup.transform
+    coulomb, exchange = setup.coulomb, setup.exchange
+    transform, kept = dict(setup.start_transform), dict(setup.start_kept)
+    starting = bool(setup.start_kept)
     lo = open_sub.l
     closed = {l: layout[l] - (1 if l == lo else 0) for l in ls}
     w_c = weight[lo]
@@ -711,7 +757,7 @@ def solve_open_shell(
             g = f_c[l] @ d_c[l] @ overlap[l]
             if l == lo:
                 g = g + (w_o / w_c) * (f_o @ d_o @ overlap[l])
-            gradients.append((g - g.T).ravel())
+            gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
         residual = float(np.max(np.abs(error)))
         change = energy - energy_before
@@ -723,7 +769,10 @@ def solve_open_shell(
         if not (math.isfinite(energy) and math.isfinite(residual)):
             raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
                                    f"at iteration {iteration}", state)
-        if residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+        if starting and residual < START_RESIDUAL:
+            _switch_to_full_basis(setup, transform, kept, history)
+            starting = False
+        elif residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
             # Keep the orbitals whose energy this is: only the closed ones of each l are made
             # canonical (a rotation among them changes nothing). A final diagonalisation of R
             # would rotate closed into open orbitals by ~residual/Δε, which moves the
@@ -762,6 +811,8 @@ def solve(
     progress: Callable[[SCFState], None] | None = None,
     should_stop: Callable[[], bool] | None = None,
     max_iterations: int = MAX_ITERATIONS,
+    *,
+    average: bool = False,
 ) -> HartreeFockResult:
     """:func:`solve_closed_shell` or, with one open subshell, :func:`solve_open_shell`.
 
@@ -770,6 +821,9 @@ def solve(
     configuration : Configuration
     basis, progress, should_stop, max_iterations
         As for :func:`solve_closed_shell`.
+    average : bool
+        Minimise the average energy of the configuration instead (any number of open
+        s, p, d ... subshells; see :func:`solve_average`).
 
     Returns
     -------
@@ -792,9 +846,205 @@ def solve(
     >>> round(solve(parse_spec("He")).energy, 5)
     -2.86168
     """
+    if average:
+        return solve_average(configuration, basis, progress, should_stop, max_iterations)
     if all(w == 2 * (2 * s.l + 1) for s, w in configuration.occupations):
         return solve_closed_shell(configuration, basis, progress, should_stop, max_iterations)
     return solve_open_shell(configuration, basis, progress, should_stop, max_iterations)
+
+
+def solve_average(
+    configuration: Configuration,
+    basis: EvenTemperedBasis | None = None,
+    progress: Callable[[SCFState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    max_iterations: int = MAX_ITERATIONS,
+) -> HartreeFockResult:
+    """Restricted Hartree–Fock for the average energy of a configuration (any open subshells).
+
+    Parameters
+    ----------
+    configuration : Configuration
+        The occupied subshells of each l the lowest ones (n = l+1, l+2, ...), e.g.
+        ``He 1s1 2s1``, ``Li 1s2 2p1`` or ``Ne 1s2 2s2 2p5 3s1``.
+    basis, progress, should_stop, max_iterations
+        As for :func:`solve_closed_shell`.
+
+    Returns
+    -------
+    HartreeFockResult
+        The energy is the average over all determinants of the configuration; each
+        orbital energy is the diagonal element of its subshell's Fock operator.
+
+    Raises
+    ------
+    ModelError
+        Occupied subshells that are not the lowest of their l.
+    HartreeFockError
+        No convergence within ``max_iterations``.
+
+    Notes
+    -----
+    One radial function per subshell a (occupancy w_a, density D_a = φ_a φ_aᵀ); the
+    energy is that of :func:`zeffir.core.energy.average_energy_expression`,
+
+    E_av = Σ_a w_a tr(D_a h) + Σ c^k_ab F^k(a, b) + Σ d^k_ab G^k(a, b),
+
+    F^k(a, b) = Σ D_a,pq D_b,rs R^k[pq|rs], G^k(a, b) = Σ φ_a,p φ_b,r φ_b,q φ_a,s R^k[pr|qs].
+    Its derivative defines one Fock operator per subshell (per electron),
+    ∂E/∂φ_a = 2 w_a F_a φ_a. For the orbitals of one l, stationarity requires
+    ⟨φ_j|w_i F_i - w_j F_j|φ_i⟩ = 0 and ⟨φ_v|F_i|φ_i⟩ = 0 (v virtual). As in
+    :func:`solve_open_shell` (Roothaan 1960) these are the off-diagonal blocks of one
+    Hermitian matrix R per l, in the basis of the current orbitals: R_ii = F_i,
+    R_iv = F_i, R_vv = F of the highest occupied subshell of l, and
+    R_ij = (w_i F_i - w_j F_j)/(w_i - w_j) for w_i ≠ w_j, F_i - F_j for equal open
+    occupancies (the step then scales like a Newton step), ½(F_i + F_j) for two full
+    subshells (their rotation leaves E unchanged). Orbitals in order of eigenvalue;
+    DIIS on the gradient Σ_i w_i (F_i D_i S - S D_i F_i)/(2(2l+1)); convergence
+    criteria as for :func:`solve_closed_shell`. For closed shells, or one open s
+    subshell, the result is that of the other solvers.
+
+    References
+    ----------
+    J. C. Slater, *Quantum Theory of Atomic Structure* (1960), vol. II, ch. 21 (average
+    of configuration); C. C. J. Roothaan, Rev. Mod. Phys. 32, 179 (1960); P. Pulay, Chem.
+    Phys. Lett. 73, 393 (1980).
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> li = solve_average(parse_spec("Li"))  # one open s electron: the ground term
+    >>> abs(li.energy - solve_open_shell(parse_spec("Li")).energy) < 1e-8
+    True
+    """
+    from zeffir.core.energy import average_energy_expression
+    from zeffir.core.models._hf_integrals import rk_tensor
+
+    subs = [sub for sub, _ in configuration.occupations]
+    occ = {sub: float(w) for sub, w in configuration.occupations}
+    layout: dict[int, int] = {}
+    for l in sorted({sub.l for sub in subs}):
+        ns = sorted(sub.n for sub in subs if sub.l == l)
+        if ns != list(range(l + 1, l + 1 + len(ns))):
+            raise ModelError(f"{configuration.spec}: the occupied {'spdfghik'[l]} subshells must be "
+                             f"the lowest ones (n = {l + 1}, {l + 2}, ...)")
+        layout[l] = len(ns)
+    basis = basis or default_basis(configuration)
+    setup = _setup(configuration, basis, layout)
+    ls, zetas, overlap, core = setup.ls, setup.zetas, setup.overlap, setup.core
+    transform, kept = dict(setup.start_transform), dict(setup.start_kept)
+    starting = bool(setup.start_kept)
+    col = {sub: sub.n - sub.l - 1 for sub in subs}
+    full = {sub: occ[sub] == 2 * (2 * sub.l + 1) for sub in subs}
+    expression = average_energy_expression(configuration)
+    terms = [(c, kind, k, a, b) for (kind, k, a, b), c in expression.slater.items() if c != 0.0]
+    tensors: dict[tuple[str, int, int, int], FloatArray] = {}
+
+    def tensor(kind: str, k: int, la: int, lb: int) -> FloatArray:
+        """R^k arranged (p, q, r, s) with p, q of l_a and r, s of l_b, to contract with D_b."""
+        key = (kind, k, la, lb)
+        if key not in tensors:
+            za, zb = zetas[la], zetas[lb]
+            if kind == "F":
+                tensors[key] = rk_tensor(k, la + 1, za, la + 1, za, lb + 1, zb, lb + 1, zb)
+            else:  # R^k[p r | q s], p, s of l_a: moved to (p, s, r, q)
+                t = rk_tensor(k, la + 1, za, lb + 1, zb, lb + 1, zb, la + 1, za)
+                tensors[key] = t.transpose(0, 3, 1, 2)
+        return tensors[key]
+
+    def densities(c: dict[int, FloatArray]) -> dict[Subshell, FloatArray]:
+        return {sub: np.outer(c[sub.l][:, col[sub]], c[sub.l][:, col[sub]]) for sub in subs}
+
+    def fock_of(c: dict[int, FloatArray]) -> tuple[dict[Subshell, FloatArray], float]:
+        dens = densities(c)
+        g = {sub: np.zeros_like(core[sub.l]) for sub in subs}
+        energy = sum(occ[sub] * float(np.sum(dens[sub] * core[sub.l])) for sub in subs)
+        for coeff, kind, k, a, b in terms:
+            on_a = np.tensordot(tensor(kind, k, a.l, b.l), dens[b], axes=([2, 3], [0, 1]))
+            energy += coeff * float(np.sum(dens[a] * on_a))
+            if a == b:
+                g[a] += 2 * coeff * on_a
+            else:
+                g[a] += coeff * on_a
+                g[b] += coeff * np.tensordot(tensor(kind, k, b.l, a.l), dens[a], axes=([2, 3], [0, 1]))
+        return {sub: core[sub.l] + g[sub] / occ[sub] for sub in subs}, energy
+
+    def effective(c: dict[int, FloatArray], fock: dict[Subshell, FloatArray]) -> dict[int, FloatArray]:
+        out = {}
+        for l in ls:
+            x = transform[l]
+            mine = [sub for sub in subs if sub.l == l]
+            f = {sub: x.T @ fock[sub] @ x for sub in mine}
+            u = x.T @ overlap[l] @ c[l]
+            p = {sub: np.outer(u[:, col[sub]], u[:, col[sub]]) for sub in mine}
+            p_v = np.eye(x.shape[1]) - sum(p.values())
+            r = p_v @ f[max(mine, key=lambda sub: sub.n)] @ p_v
+            for i, a in enumerate(mine):
+                r += p[a] @ f[a] @ p[a] + p[a] @ f[a] @ p_v + p_v @ f[a] @ p[a]
+                for b in mine[i + 1:]:
+                    if full[a] and full[b]:
+                        block = 0.5 * (f[a] + f[b])
+                    elif occ[a] != occ[b]:
+                        block = (occ[a] * f[a] - occ[b] * f[b]) / (occ[a] - occ[b])
+                    else:
+                        block = f[a] - f[b]
+                    r += p[a] @ block @ p[b] + p[b] @ block @ p[a]
+            out[l] = 0.5 * (r + r.T)
+        return out
+
+    def diagonalise(matrices: dict[int, FloatArray]) -> dict[int, FloatArray]:
+        return {l: transform[l] @ np.linalg.eigh(matrices[l])[1][:, : layout[l]] for l in ls}
+
+    coefficients = diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls})
+    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
+    energy_before = math.inf
+    state: SCFState | None = None
+    for iteration in range(1, max_iterations + 1):
+        if (should_stop is not None and should_stop()) or ambient_should_stop():
+            raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+        fock, energy = fock_of(coefficients)
+        dens = densities(coefficients)
+        gradients = []
+        for l in ls:
+            g = sum((occ[sub] * fock[sub] @ dens[sub] for sub in subs if sub.l == l),
+                    np.zeros_like(core[l])) @ overlap[l] / (2 * (2 * l + 1))
+            gradients.append(_gradient(g, kept.get(l)).ravel())
+        error = np.concatenate(gradients)
+        residual = float(np.max(np.abs(error)))
+        change = energy - energy_before
+        state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
+        if progress is not None:
+            progress(state)
+        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
+                       f"E_av = {energy:.8f} Eh, residual {residual:.1e}")
+        if not (math.isfinite(energy) and math.isfinite(residual)):
+            raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
+                                   f"at iteration {iteration}", state)
+        if starting and residual < START_RESIDUAL:
+            _switch_to_full_basis(setup, transform, kept, history)
+            starting = False
+        elif residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+            break
+        energy_before = energy
+        history.append((effective(coefficients, fock), error))
+        del history[:-DIIS_SIZE]
+        coefficients = diagonalise(_diis(history, ls))
+    else:
+        raise HartreeFockError(
+            f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
+            f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
+            f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
+    dens = densities(coefficients)
+    kinetic_energy = sum(occ[sub] * float(np.sum(dens[sub] * setup.kinetic[sub.l])) for sub in subs)
+    _check_coefficients(configuration, coefficients, state)
+    orbital_energies = {sub: float(np.sum(dens[sub] * fock[sub])) for sub in subs}
+    signed = {}
+    for l in ls:
+        c = coefficients[l].copy()
+        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
+        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
+                             state.energy - kinetic_energy, state, setup.dropped)
 
 
 @dataclass(frozen=True)
@@ -811,6 +1061,12 @@ class _Setup:
     exchange: dict[tuple[int, int], FloatArray]
     transform: dict[int, FloatArray]
     dropped: dict[int, int]
+    #: ``{l: U_k U_kᵀ}``, the projector on the kept overlap eigenvectors, for the l with
+    #: dropped combinations (the orbital gradient has no meaning outside their span).
+    kept: dict[int, FloatArray]
+    #: ``transform`` and ``kept`` with :data:`START_LINEAR_DEPENDENCE`, for the first iterations.
+    start_transform: dict[int, FloatArray]
+    start_kept: dict[int, FloatArray]
 
 
 def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int]) -> _Setup:
@@ -846,6 +1102,9 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
             exchange[lam, lp] = k_sum
     transform: dict[int, FloatArray] = {}
     dropped: dict[int, int] = {}
+    kept: dict[int, FloatArray] = {}
+    start_transform: dict[int, FloatArray] = {}
+    start_kept: dict[int, FloatArray] = {}
     for l in ls:
         values, vectors = np.linalg.eigh(overlap[l])
         keep = values > LINEAR_DEPENDENCE * values[-1]
@@ -854,7 +1113,39 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
                              "than occupied orbitals")
         transform[l] = vectors[:, keep] / np.sqrt(values[keep])
         dropped[l] = int(np.count_nonzero(~keep))
-    return _Setup(ls, weight, zetas, overlap, kinetic, core, coulomb, exchange, transform, dropped)
+        if dropped[l]:
+            kept[l] = vectors[:, keep] @ vectors[:, keep].T
+        start = values > max(START_LINEAR_DEPENDENCE, LINEAR_DEPENDENCE) * values[-1]
+        if int(np.count_nonzero(start)) < layout[l] or max(ls) < 2:
+            # Without d electrons the plain iteration converges (He–Ar, K, Ca tested).
+            start = keep
+        start_transform[l] = vectors[:, start] / np.sqrt(values[start])
+        if np.count_nonzero(~start):
+            start_kept[l] = vectors[:, start] @ vectors[:, start].T
+    return _Setup(ls, weight, zetas, overlap, kinetic, core, coulomb, exchange, transform, dropped, kept,
+                  start_transform, start_kept)
+
+
+def _switch_to_full_basis(setup: _Setup, transform: dict[int, FloatArray], kept: dict[int, FloatArray],
+                          history: list[tuple[dict[int, FloatArray], FloatArray]]) -> None:
+    """Replace the starting basis by the full one, in place, and forget the DIIS history."""
+    transform.clear()
+    transform.update(setup.transform)
+    kept.clear()
+    kept.update(setup.kept)
+    history.clear()
+
+
+def _gradient(g: FloatArray, kept: FloatArray | None) -> FloatArray:
+    """The orbital gradient g - gᵀ (g = F D S), within the span of the kept basis combinations.
+
+    With dropped combinations the orbitals cannot move along them, so their part of the
+    gradient never vanishes; Π (g - gᵀ) Π (Π the projector on the kept overlap
+    eigenvectors) is X⁺ᵀ (X⁺ g X) X⁺ in the non-orthogonal representation, without the
+    1/s amplification of rounding that the orthonormal form X^T g X would bring.
+    """
+    a = g - g.T
+    return a if kept is None else kept @ a @ kept
 
 
 def _check_trustworthy(configuration: Configuration, coefficients: dict[int, FloatArray],
@@ -936,12 +1227,18 @@ class HartreeFockModel:
     """
 
     name: str = "hartree-fock"
-    title: str = "restricted Hartree–Fock (closed shells, one open s or p shell)"
+    title: str = "restricted Hartree–Fock"
     reference: str = "Roothaan 1951, 1960 (method); Koga et al. 1999 (energies)"
 
     def build(self, configuration: Configuration) -> OrbitalSet:
-        """Solve the Roothaan equations for ``configuration`` and return its orbitals."""
-        result = solve(configuration)
+        """Solve the Roothaan equations for ``configuration`` and return its orbitals.
+
+        With several open subshells (excited configurations) the average of
+        configuration is used instead of the Hund ground term, and the notes say so.
+        """
+        open_subshells = [s for s, w in configuration.occupations if w < 2 * (2 * s.l + 1)]
+        average = len(open_subshells) > 1
+        result = solve(configuration, average=average)
         orbitals = []
         for sub, occ in configuration.occupations:
             radial = SlaterExpansionRadial(sub.n, sub.l, sub.l + 1, result.basis.zetas(sub.l),
@@ -952,7 +1249,8 @@ class HartreeFockModel:
                 (f"{sub.label}: ζ and Z_eff are effective values from <1/r> (Z_eff = n²<1/r>)",)))
         sizes = ", ".join(f"{count} {'spdfghik'[l]}"
                           for l, (_, _, count) in sorted(result.basis.sets.items()))
-        kind = ("closed shells" if all(w == 2 * (2 * s.l + 1) for s, w in configuration.occupations)
+        kind = ("closed shells" if not open_subshells
+                else "average of configuration: several open subshells" if average
                 else "one open subshell, energy of the Hund ground term")
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
                           notes=(f"restricted Hartree–Fock ({kind}), even-tempered Slater-type basis "
