@@ -375,6 +375,30 @@ def _exchange_weight(l1: int, k: int, l2: int) -> float:
     return square.numerator / square.denominator
 
 
+
+def _stop_if_asked(configuration: Configuration, should_stop: Callable[[], bool] | None,
+                   state: SCFState | None) -> None:
+    """Raise :class:`HartreeFockCancelled` if the caller (or the worker running us) asked to stop."""
+    if (should_stop is not None and should_stop()) or ambient_should_stop():
+        raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+
+
+def _record_iteration(configuration: Configuration, iteration: int, energy: float,
+                      energy_before: float, error: FloatArray,
+                      progress: Callable[[SCFState], None] | None, symbol: str) -> SCFState:
+    """The state of one SCF iteration: reported to the caller, and checked for divergence."""
+    residual = float(np.max(np.abs(error)))
+    change = energy - energy_before
+    state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
+    if progress is not None:
+        progress(state)
+    ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
+                   f"{symbol} = {energy:.8f} Eh, residual {residual:.1e}")
+    if not (math.isfinite(energy) and math.isfinite(residual)):
+        raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
+                               f"at iteration {iteration}", state)
+    return state
+
 def solve_closed_shell(
     configuration: Configuration,
     basis: EvenTemperedBasis | None = None,
@@ -486,8 +510,7 @@ def solve_closed_shell(
     energy_before = math.inf
     state: SCFState | None = None
     for iteration in range(1, max_iterations + 1):
-        if (should_stop is not None and should_stop()) or ambient_should_stop():
-            raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+        _stop_if_asked(configuration, should_stop, state)
         density = {l: coefficients[l] @ coefficients[l].T for l in ls}
         fock = fock_of(density)
         energy = energy_of(density, fock)
@@ -498,16 +521,9 @@ def solve_closed_shell(
             g = fock[l] @ density[l] @ overlap[l]
             gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
-        residual = float(np.max(np.abs(error)))
-        change = energy - energy_before
-        state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
-        if progress is not None:
-            progress(state)
-        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
-                       f"E = {energy:.8f} Eh, residual {residual:.1e}")
-        if not (math.isfinite(energy) and math.isfinite(residual)):
-            raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
-                                   f"at iteration {iteration}", state)
+        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
+                                  "E")
+        residual, change = state.residual, energy - energy_before
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
@@ -752,8 +768,7 @@ def solve_open_shell(
     energy_before = math.inf
     state: SCFState | None = None
     for iteration in range(1, max_iterations + 1):
-        if (should_stop is not None and should_stop()) or ambient_should_stop():
-            raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+        _stop_if_asked(configuration, should_stop, state)
         d_c, d_o = split(coefficients)
         f_c, f_o, energy = fock_of(d_c, d_o)
         gradients = []
@@ -763,16 +778,9 @@ def solve_open_shell(
                 g = g + (w_o / w_c) * (f_o @ d_o @ overlap[l])
             gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
-        residual = float(np.max(np.abs(error)))
-        change = energy - energy_before
-        state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
-        if progress is not None:
-            progress(state)
-        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
-                       f"E = {energy:.8f} Eh, residual {residual:.1e}")
-        if not (math.isfinite(energy) and math.isfinite(residual)):
-            raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
-                                   f"at iteration {iteration}", state)
+        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
+                                  "E")
+        residual, change = state.residual, energy - energy_before
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
@@ -1004,8 +1012,7 @@ def solve_average(
     energy_before = math.inf
     state: SCFState | None = None
     for iteration in range(1, max_iterations + 1):
-        if (should_stop is not None and should_stop()) or ambient_should_stop():
-            raise HartreeFockCancelled(f"{configuration.spec}: Hartree–Fock run cancelled", state)
+        _stop_if_asked(configuration, should_stop, state)
         fock, energy = fock_of(coefficients)
         dens = densities(coefficients)
         gradients = []
@@ -1014,16 +1021,9 @@ def solve_average(
                     np.zeros_like(core[l])) @ overlap[l] / (2 * (2 * l + 1))
             gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
-        residual = float(np.max(np.abs(error)))
-        change = energy - energy_before
-        state = SCFState(iteration, energy, residual, change if math.isfinite(change) else math.inf)
-        if progress is not None:
-            progress(state)
-        ambient_report(f"{configuration.spec}: Hartree–Fock iteration {iteration}, "
-                       f"E_av = {energy:.8f} Eh, residual {residual:.1e}")
-        if not (math.isfinite(energy) and math.isfinite(residual)):
-            raise HartreeFockError(f"{configuration.spec}: the self-consistent field diverged "
-                                   f"at iteration {iteration}", state)
+        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
+                                  "E_av")
+        residual, change = state.residual, energy - energy_before
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
