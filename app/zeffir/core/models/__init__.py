@@ -24,6 +24,8 @@ register(SlaterRulesModel())
 register(ClementiModel())
 register(VariationalModel())
 register(HartreeFockModel())
+register(HartreeFockModel("hartree-fock-average", "Hartree–Fock, average of configuration",
+                          "Roothaan 1960 (method); Slater 1960 (average of configuration)", average=True))
 
 __all__ = [
     "DEFAULT_MODEL",

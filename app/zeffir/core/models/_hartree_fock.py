@@ -8,6 +8,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable
 from dataclasses import dataclass, field
+from typing import TYPE_CHECKING
 
 import numpy as np
 import numpy.typing as npt
@@ -17,6 +18,9 @@ from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
+
+if TYPE_CHECKING:
+    from zeffir.core.energy import EnergyExpression
 
 __all__ = [
     "EvenTemperedBasis",
@@ -30,13 +34,21 @@ __all__ = [
     "solve",
     "solve_average",
     "solve_closed_shell",
+    "solve_expression",
+    "solve_hund",
     "solve_open_shell",
 ]
 
 #: Converged when the largest |FDS - SDF| element (orthogonal basis) is below this (hartree)...
 COMMUTATOR_TOLERANCE = 1e-9
-#: ... and the energy changed by less than this (hartree) in the last iteration.
+#: ... and the energy changed by less than this (hartree) in the last iteration, or by
+#: less than :data:`ENERGY_NOISE` of |E| for heavy atoms.
 ENERGY_TOLERANCE = 1e-11
+#: Relative rounding floor of the total energy: summing integrals over ~25⁴ basis
+#: quadruples, the energy of a fixed density scatters by ~1e-13 of |E| (±1e-9 Eh for
+#: Eu at -10423.5 Eh once the gradient is below 1e-10), so the energy test cannot be
+#: tighter than this.
+ENERGY_NOISE = 1e-12
 #: Overlap eigenvalues below this (relative to the largest) are dropped as linear dependence.
 LINEAR_DEPENDENCE = 1e-11
 #: The iteration starts in the basis without the combinations whose overlap eigenvalue is
@@ -48,12 +60,24 @@ LINEAR_DEPENDENCE = 1e-11
 START_LINEAR_DEPENDENCE = 1e-8
 START_RESIDUAL = 1e-2
 MAX_ITERATIONS = 200
+#: Smallest exponent of an l set holding a Rydberg-like orbital, in units of q/n (see
+#: :func:`default_basis`).
+RYDBERG_TAIL = 0.3
+#: A converged solution with |-V/T - 2| above this is refused: the virial theorem holds
+#: for the exact Hartree–Fock orbitals, and the default bases reach |-V/T - 2| <= 5e-8
+#: for every atom tested, so a larger deviation means the basis cannot represent an
+#: orbital (He 1s1 4s1 with the ground-state basis: 5e-3, energy 7.7e-4 Eh too high).
+VIRIAL_TOLERANCE = 1e-5
 #: Number of previous Fock matrices DIIS extrapolates from.
 DIIS_SIZE = 8
-#: Largest Σ_p |C_p| of an occupied orbital accepted. Rounding errors of the integrals
-#: (~1e-16 relative) enter the energy multiplied by about (Σ|C|)⁴; physical orbitals
-#: in the default bases have Σ|C| < 16 up to Kr (about 42 for the 5s of Xe); larger
-#: cancellations signal a numerically linearly dependent basis.
+#: Largest Σ_p |C_p| of an occupied orbital accepted, times (n - l)². Rounding
+#: errors of the integrals (~1e-16 relative) enter the energy multiplied by about
+#: (Σ|C|)⁴; ground-state orbitals in the default bases have Σ|C| < 16 up to Kr (about
+#: 42 for the 5s of Xe); larger cancellations there signal a numerically linearly
+#: dependent basis. Rydberg-like orbitals with n - l lobes are sums of strongly
+#: cancelling diffuse functions (Σ|C| ≈ 160 for the 4s of He 1s1 4s1 and the 5s of Na
+#: [Ne] 5s1) whose integrals are small; their energies agree to 1e-8 Eh between bases
+#: starting at ζ = 0.1 and 0.05, so the limit grows with the number of lobes n - l.
 MAX_COEFFICIENT_SUM = 100.0
 
 
@@ -143,15 +167,17 @@ class SlaterExpansionRadial(RadialFunction):
     def nodes(self) -> FloatArray:
         """Radial nodes, leaving out sign changes in the far tail.
 
-        Far out, where less than 1e-8 of the electron remains, the expansion can cross
+        Far out, where less than ~1e-7 of the electron remains, the expansion can cross
         zero: there the orbital has decayed below what the variational solution fixes
         (the admixture of other orbitals left by a ~1e-9 residual, or a diffuse basis
-        function with a small negative coefficient). Every node of a bound orbital lies
-        inside its outer maximum, with most of the electron beyond it, so dropping the
-        crossings with less than 1e-8 of the electron outside loses no true node.
+        function with a small negative coefficient; the 3s of He 1s1 3s1 crosses at 49
+        and 64 bohr with 1.7e-8 of the electron outside). Every node of a bound orbital
+        lies inside its outer maximum, with most of the electron beyond it (0.91 for that
+        3s's outer node at 5.2 bohr), so dropping the crossings with less than 1e-4 of the
+        electron outside loses no true node.
         """
         roots = super().nodes()
-        return roots[self._outside(roots) > 1e-8]
+        return roots[self._outside(roots) > 1e-4]
 
     def _outside(self, r: npt.ArrayLike) -> FloatArray:
         """1 - Q(r), summed from the complementary incomplete gamma functions (no cancellation)."""
@@ -245,6 +271,16 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     orbital and an almost free one, while from 0.25 (or 0.15) it converges to the same
     energy to 1e-12 Eh.
 
+    An excited configuration whose outermost subshell of some l lies above an empty one
+    of that l (He 1s1 4s1, Na [Ne] 4d1) has a Rydberg-like orbital decaying as
+    e^{-qr/n} (q the charge seen far out): its l set starts at
+    ζ = min(0.25, :data:`RYDBERG_TAIL` q/n), with β = 1.25. From 0.25 the He 1s1 4s1
+    energy is 7.7e-4 Eh too high (virial ratio off by 5e-3); with these sets the He
+    1s1 ns energies (n ≤ 5) change by less than 3e-7 Eh when the tail or β is varied
+    (tests/core/models/test_hartree_fock_excited.py). Beyond n - l ≈ 5 the nodeless
+    Slater-type functions cancel too strongly; such configurations are refused by
+    :data:`MAX_COEFFICIENT_SUM` or :data:`VIRIAL_TOLERANCE`.
+
     References
     ----------
     Ruedenberg, Raffenetti and Bardo 1973 (even-tempered bases).
@@ -258,19 +294,31 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     ((1.3, 25), (1.3, 20))
     """
     Z = configuration.Z
-    alpha = 0.25
     sets: dict[int, tuple[float, float, int]] = {}
-    ls = sorted({s.l for s, _ in configuration.occupations})
+    occupied = [s for s, w in configuration.occupations if w > 0]
+    ls = sorted({s.l for s in occupied})
     # Atoms with d electrons need denser p and d sets (see Notes); lighter ones keep the
     # cheaper β = 1.4 p set, which already reaches 1e-6 Eh.
     with_d = max(ls) >= 2
+    # Charge felt by an outer electron far out (1 for a neutral atom).
+    outer_charge = max(1, Z - configuration.n_electrons + 1)
     for l in ls:
+        ns = sorted(s.n for s in occupied if s.l == l)
         if l == 0:
             top, beta = 8.0 * Z, 1.35
         elif l == 1:
             top, beta = 3.0 * Z, (1.3 if with_d else 1.4)
+        elif max(ls) >= 3:
+            # With f electrons (Z > 57) the d set reaches 2Z, denser: Rn's energy drops
+            # by 1.2e-5 Eh from the Z, β = 1.3 set, and is then stable to 3e-7 Eh.
+            top, beta = 2.0 * Z, 1.25
         else:
             top, beta = 1.0 * Z, 1.3
+        alpha = 0.25
+        if ns != list(range(l + 1, l + 1 + len(ns))):
+            # An excited (Rydberg-like) orbital above an empty subshell: reach its tail,
+            # with a denser set for its nodes.
+            alpha, beta = min(alpha, RYDBERG_TAIL * outer_charge / ns[-1]), min(beta, 1.25)
         count = max(4, math.ceil(math.log(top / alpha) / math.log(beta)) + 1)
         sets[l] = (alpha, beta, count)
     return EvenTemperedBasis(sets)
@@ -374,6 +422,11 @@ def _exchange_weight(l1: int, k: int, l2: int) -> float:
     _, square = wigner_3j_squared(l1, k, l2, 0, 0, 0)
     return square.numerator / square.denominator
 
+
+
+def _energy_settled(change: float, energy: float) -> bool:
+    """The energy criterion of convergence (see :data:`ENERGY_TOLERANCE`)."""
+    return abs(change) < max(ENERGY_TOLERANCE, ENERGY_NOISE * abs(energy))
 
 
 def _stop_if_asked(configuration: Configuration, should_stop: Callable[[], bool] | None,
@@ -530,7 +583,7 @@ def solve_closed_shell(
             energy_before = energy
             coefficients, energies = diagonalise(fock)
             continue
-        if residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+        if residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
             # Orbitals and energies of the converged Fock matrix itself (not an extrapolation).
             coefficients, energies = diagonalise(fock)
             break
@@ -545,6 +598,7 @@ def solve_closed_shell(
             f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
     kinetic_energy = float(sum(weight[l] * np.sum(density[l] * kinetic[l]) for l in ls))
     _check_trustworthy(configuration, coefficients, density, core, weight, state)
+    _check_virial(configuration, kinetic_energy, state.energy, state)
     orbital_energies = {}
     for l in ls:
         for i, n in enumerate(range(l + 1, l + 1 + layout[l])):
@@ -570,7 +624,7 @@ def _open_shell_layout(configuration: Configuration) -> tuple[dict[int, int], Su
                          "restricted Hartree–Fock here treats closed shells plus one open s, p or d "
                          "subshell (one radial function per subshell, Hund ground term)")
     sub, occupancy = partial[0]
-    if sub.l > 2:
+    if sub.l > 3:
         raise ModelError(f"{configuration.spec}: an open {'spdfghik'[sub.l]} subshell ({shown}) is not "
                          "supported; restricted Hartree–Fock here treats closed shells plus one open "
                          "s, p or d subshell (open f shells are untested)")
@@ -784,7 +838,7 @@ def solve_open_shell(
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
-        elif residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+        elif residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
             # Keep the orbitals whose energy this is: only the closed ones of each l are made
             # canonical (a rotation among them changes nothing). A final diagonalisation of R
             # would rotate closed into open orbitals by ~residual/Δε, which moves the
@@ -804,6 +858,7 @@ def solve_open_shell(
     kinetic_energy = float(sum(weight[l] * np.sum(d_c[l] * kinetic[l]) for l in ls)
                            + w_o * np.sum(d_o * kinetic[lo]))
     _check_coefficients(configuration, coefficients, state)
+    _check_virial(configuration, kinetic_energy, state.energy, state)
     orbital_energies = {}
     for l in ls:
         for i, n in enumerate(range(l + 1, l + 1 + layout[l])):
@@ -860,9 +915,24 @@ def solve(
     """
     if average:
         return solve_average(configuration, basis, progress, should_stop, max_iterations)
-    if all(w == 2 * (2 * s.l + 1) for s, w in configuration.occupations):
+    if _lower_subshells_empty(configuration):
+        return solve_hund(configuration, basis, progress, should_stop, max_iterations)
+    partial = [s for s, w in configuration.occupations if w != 2 * (2 * s.l + 1)]
+    if not partial:
         return solve_closed_shell(configuration, basis, progress, should_stop, max_iterations)
-    return solve_open_shell(configuration, basis, progress, should_stop, max_iterations)
+    if len(partial) == 1 and partial[0].l <= 3 and partial[0].n == max(
+            s.n for s, _ in configuration.occupations if s.l == partial[0].l):
+        return solve_open_shell(configuration, basis, progress, should_stop, max_iterations)
+    return solve_hund(configuration, basis, progress, should_stop, max_iterations)
+
+
+def _lower_subshells_empty(configuration: Configuration) -> bool:
+    """True when an occupied subshell has an empty one of the same l below it (He 1s1 3s1)."""
+    ns: dict[int, list[int]] = {}
+    for sub, w in configuration.occupations:
+        if w > 0:
+            ns.setdefault(sub.l, []).append(sub.n)
+    return any(sorted(v) != list(range(l + 1, l + 1 + len(v))) for l, v in ns.items())
 
 
 def solve_average(
@@ -877,8 +947,8 @@ def solve_average(
     Parameters
     ----------
     configuration : Configuration
-        The occupied subshells of each l the lowest ones (n = l+1, l+2, ...), e.g.
-        ``He 1s1 2s1``, ``Li 1s2 2p1`` or ``Ne 1s2 2s2 2p5 3s1``.
+        Any configuration, e.g. ``He 1s1 2s1``, ``Li 1s2 2p1``, ``Ne 1s2 2s2 2p5 3s1`` or
+        ``Na [Ne] 4s1`` (a lower subshell of an l may be empty).
     basis, progress, should_stop, max_iterations
         As for :func:`solve_closed_shell`.
 
@@ -890,37 +960,18 @@ def solve_average(
 
     Raises
     ------
-    ModelError
-        Occupied subshells that are not the lowest of their l.
     HartreeFockError
         No convergence within ``max_iterations``.
 
     Notes
     -----
-    One radial function per subshell a (occupancy w_a, density D_a = φ_a φ_aᵀ); the
-    energy is that of :func:`zeffir.core.energy.average_energy_expression`,
-
-    E_av = Σ_a w_a tr(D_a h) + Σ c^k_ab F^k(a, b) + Σ d^k_ab G^k(a, b),
-
-    F^k(a, b) = Σ D_a,pq D_b,rs R^k[pq|rs], G^k(a, b) = Σ φ_a,p φ_b,r φ_b,q φ_a,s R^k[pr|qs].
-    Its derivative defines one Fock operator per subshell (per electron),
-    ∂E/∂φ_a = 2 w_a F_a φ_a. For the orbitals of one l, stationarity requires
-    ⟨φ_j|w_i F_i - w_j F_j|φ_i⟩ = 0 and ⟨φ_v|F_i|φ_i⟩ = 0 (v virtual). As in
-    :func:`solve_open_shell` (Roothaan 1960) these are the off-diagonal blocks of one
-    Hermitian matrix R per l, in the basis of the current orbitals: R_ii = F_i,
-    R_iv = F_i, R_vv = F of the highest occupied subshell of l, and
-    R_ij = (w_i F_i - w_j F_j)/(w_i - w_j) for w_i ≠ w_j, F_i - F_j for equal open
-    occupancies (the step then scales like a Newton step), ½(F_i + F_j) for two full
-    subshells (their rotation leaves E unchanged). Orbitals in order of eigenvalue;
-    DIIS on the gradient Σ_i w_i (F_i D_i S - S D_i F_i)/(2(2l+1)); convergence
-    criteria as for :func:`solve_closed_shell`. For closed shells, or one open s
-    subshell, the result is that of the other solvers.
+    :func:`solve_expression` with the average-of-configuration expression
+    (:func:`zeffir.core.energy.average_energy_expression`).
 
     References
     ----------
     J. C. Slater, *Quantum Theory of Atomic Structure* (1960), vol. II, ch. 21 (average
-    of configuration); C. C. J. Roothaan, Rev. Mod. Phys. 32, 179 (1960); P. Pulay, Chem.
-    Phys. Lett. 73, 393 (1980).
+    of configuration).
 
     Examples
     --------
@@ -930,26 +981,147 @@ def solve_average(
     True
     """
     from zeffir.core.energy import average_energy_expression
+
+    return solve_expression(average_energy_expression(configuration), basis, progress, should_stop,
+                            max_iterations, symbol="E_av")
+
+
+def solve_hund(
+    configuration: Configuration,
+    basis: EvenTemperedBasis | None = None,
+    progress: Callable[[SCFState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    max_iterations: int = MAX_ITERATIONS,
+) -> HartreeFockResult:
+    """Restricted Hartree–Fock for the Hund term of any configuration (its single determinant).
+
+    Parameters
+    ----------
+    configuration : Configuration
+        Any configuration: several open subshells (Cr 3d5 4s1 ⁷S, Gd 4f7 5d1 6s2 ⁹D,
+        He 1s1 2s1 ³S) or a lower subshell of an l left empty (Na [Ne] 4s1).
+    basis, progress, should_stop, max_iterations
+        As for :func:`solve_closed_shell`.
+
+    Returns
+    -------
+    HartreeFockResult
+        The energy of the determinant of highest M_S, then highest M_L.
+
+    Notes
+    -----
+    :func:`solve_expression` with :func:`zeffir.core.energy.hund_energy_expression`.
+    Maximal M_S puts every open subshell at its own maximal M_S, and maximal M_L then
+    fixes each subshell's determinant, so that determinant is the only one with its
+    M_S = S and M_L = L: its energy is that of the LS term of highest S, then highest
+    L (Hund's rules; the lowest term for the ground configurations of nearly all
+    atoms). With one radial function per subshell the same for both spins this is the
+    restricted Hartree–Fock energy of that term.
+
+    References
+    ----------
+    C. Froese Fischer, *The Hartree–Fock Method for Atoms* (Wiley, 1977), ch. 3 (single
+    configuration, one radial function per subshell, energy of a term); Condon and
+    Shortley 1935, §7.6 (diagonal sums).
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> li = solve_hund(parse_spec("Li"))
+    >>> abs(li.energy - solve_open_shell(parse_spec("Li")).energy) < 1e-8
+    True
+    """
+    from zeffir.core.energy import hund_energy_expression
+
+    return solve_expression(hund_energy_expression(configuration), basis, progress, should_stop,
+                            max_iterations, symbol="E")
+
+
+def solve_expression(
+    expression: EnergyExpression,
+    basis: EvenTemperedBasis | None = None,
+    progress: Callable[[SCFState], None] | None = None,
+    should_stop: Callable[[], bool] | None = None,
+    max_iterations: int = MAX_ITERATIONS,
+    *,
+    symbol: str = "E",
+) -> HartreeFockResult:
+    """Restricted Hartree–Fock for an energy given as a combination of radial integrals.
+
+    Parameters
+    ----------
+    expression : EnergyExpression
+        E = Σ_a w_a I(a) + Σ c^k_ab F^k(a, b) + Σ d^k_ab G^k(a, b) of a configuration
+        (:mod:`zeffir.core.energy`); its subshells may leave lower ones of their l empty.
+    basis, progress, should_stop, max_iterations
+        As for :func:`solve_closed_shell`.
+    symbol : str
+        Name of the energy in progress messages.
+
+    Returns
+    -------
+    HartreeFockResult
+        ``coefficients[l]`` has a column per n = l+1 .. highest occupied n of l; a
+        column of an empty subshell holds a virtual orbital. Each orbital energy is
+        the diagonal element of its subshell's Fock operator.
+
+    Raises
+    ------
+    HartreeFockError
+        No convergence within ``max_iterations``.
+
+    Notes
+    -----
+    One radial function per subshell a (occupancy w_a, density D_a = φ_a φ_aᵀ);
+    F^k(a, b) = Σ D_a,pq D_b,rs R^k[pq|rs], G^k(a, b) = Σ φ_a,p φ_b,r φ_b,q φ_a,s R^k[pr|qs].
+    The derivative of E defines one Fock operator per subshell (per electron),
+    ∂E/∂φ_a = 2 w_a F_a φ_a. For the orbitals of one l, stationarity requires
+    ⟨φ_j|w_i F_i - w_j F_j|φ_i⟩ = 0 and ⟨φ_v|F_i|φ_i⟩ = 0 (v virtual). As in
+    :func:`solve_open_shell` (Roothaan 1960) these are the off-diagonal blocks of one
+    Hermitian matrix R per l, in the basis of the current orbitals: R_ii = F_i,
+    R_iv = F_i, R_vv = F of the highest occupied subshell of l, and
+    R_ij = (w_i F_i - w_j F_j)/(w_i - w_j) for w_i ≠ w_j, F_i - F_j for equal open
+    occupancies (the step then scales like a Newton step), ½(F_i + F_j) for two full
+    subshells (their rotation leaves E unchanged). Subshell nl takes the eigenvector
+    of R number n - l (in increasing order): an empty lower subshell of the same l
+    (the 3s of Na [Ne] 4s1) is the virtual orbital below it, so the occupied orbital
+    keeps its n - l - 1 radial nodes, the usual choice for excited configurations in
+    numerical Hartree–Fock (Froese Fischer 1977). DIIS on the gradient
+    Σ_i w_i (F_i D_i S - S D_i F_i)/(2(2l+1)); convergence criteria as for
+    :func:`solve_closed_shell`. For closed shells, or one open subshell with the Hund
+    expression, the result is that of the other solvers.
+
+    References
+    ----------
+    C. C. J. Roothaan, Rev. Mod. Phys. 32, 179 (1960); C. Froese Fischer, *The
+    Hartree–Fock Method for Atoms* (Wiley, 1977); P. Pulay, Chem. Phys. Lett. 73, 393
+    (1980).
+    """
     from zeffir.core.models._hf_integrals import rk_tensor
 
-    subs = [sub for sub, _ in configuration.occupations]
-    occ = {sub: float(w) for sub, w in configuration.occupations}
-    layout: dict[int, int] = {}
-    for l in sorted({sub.l for sub in subs}):
-        ns = sorted(sub.n for sub in subs if sub.l == l)
-        if ns != list(range(l + 1, l + 1 + len(ns))):
-            raise ModelError(f"{configuration.spec}: the occupied {'spdfghik'[l]} subshells must be "
-                             f"the lowest ones (n = {l + 1}, {l + 2}, ...)")
-        layout[l] = len(ns)
+    configuration = expression.configuration
+    occ = {sub: float(w) for sub, w in configuration.occupations if w > 0}
+    subs = list(occ)
+    col = {sub: sub.n - sub.l - 1 for sub in subs}
+    layout = {l: 1 + max(col[sub] for sub in subs if sub.l == l) for l in sorted({sub.l for sub in subs})}
     basis = basis or default_basis(configuration)
     setup = _setup(configuration, basis, layout)
     ls, zetas, overlap, core = setup.ls, setup.zetas, setup.overlap, setup.core
+    coulomb, exchange = setup.coulomb, setup.exchange
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
     starting = bool(setup.start_kept)
-    col = {sub: sub.n - sub.l - 1 for sub in subs}
     full = {sub: occ[sub] == 2 * (2 * sub.l + 1) for sub in subs}
-    expression = average_energy_expression(configuration)
-    terms = [(c, kind, k, a, b) for (kind, k, a, b), c in expression.slater.items() if c != 0.0]
+    # The part every pair shares with closed shells goes through the closed-shell
+    # Coulomb and exchange tensors at once; only the remainder (pairs of open subshells)
+    # is contracted term by term.
+    baseline = _spherical_pair_coefficients(occ)
+    terms = []
+    for key in set(expression.slater) | set(baseline):
+        kind, k, a, b = key
+        if a in occ and b in occ:
+            delta = expression.slater.get(key, 0.0) - baseline.get(key, 0.0)
+            if abs(delta) > 1e-12:
+                terms.append((delta, kind, k, a, b))
     tensors: dict[tuple[str, int, int, int], FloatArray] = {}
 
     def tensor(kind: str, k: int, la: int, lb: int) -> FloatArray:
@@ -969,8 +1141,17 @@ def solve_average(
 
     def fock_of(c: dict[int, FloatArray]) -> tuple[dict[Subshell, FloatArray], float]:
         dens = densities(c)
+        weighted = {l: sum((occ[sub] * dens[sub] for sub in subs if sub.l == l), np.zeros_like(core[l]))
+                    for l in ls}
+        shared = {}
+        for lam in ls:
+            f = np.zeros_like(core[lam])
+            for lp in ls:
+                f += np.tensordot(coulomb[lam, lp] - exchange[lam, lp], weighted[lp], axes=([2, 3], [0, 1]))
+            shared[lam] = f
         g = {sub: np.zeros_like(core[sub.l]) for sub in subs}
-        energy = sum(occ[sub] * float(np.sum(dens[sub] * core[sub.l])) for sub in subs)
+        energy = sum(occ[sub] * float(np.sum(dens[sub] * (core[sub.l] + 0.5 * shared[sub.l])))
+                     for sub in subs)
         for coeff, kind, k, a, b in terms:
             on_a = np.tensordot(tensor(kind, k, a.l, b.l), dens[b], axes=([2, 3], [0, 1]))
             energy += coeff * float(np.sum(dens[a] * on_a))
@@ -979,7 +1160,7 @@ def solve_average(
             else:
                 g[a] += coeff * on_a
                 g[b] += coeff * np.tensordot(tensor(kind, k, b.l, a.l), dens[a], axes=([2, 3], [0, 1]))
-        return {sub: core[sub.l] + g[sub] / occ[sub] for sub in subs}, energy
+        return {sub: core[sub.l] + shared[sub.l] + g[sub] / occ[sub] for sub in subs}, energy
 
     def effective(c: dict[int, FloatArray], fock: dict[Subshell, FloatArray]) -> dict[int, FloatArray]:
         out = {}
@@ -1022,12 +1203,12 @@ def solve_average(
             gradients.append(_gradient(g, kept.get(l)).ravel())
         error = np.concatenate(gradients)
         state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
-                                  "E_av")
+                                  symbol)
         residual, change = state.residual, energy - energy_before
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
-        elif residual < COMMUTATOR_TOLERANCE and abs(change) < ENERGY_TOLERANCE:
+        elif residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
             break
         energy_before = energy
         history.append((effective(coefficients, fock), error))
@@ -1041,6 +1222,7 @@ def solve_average(
     dens = densities(coefficients)
     kinetic_energy = sum(occ[sub] * float(np.sum(dens[sub] * setup.kinetic[sub.l])) for sub in subs)
     _check_coefficients(configuration, coefficients, state)
+    _check_virial(configuration, kinetic_energy, state.energy, state)
     orbital_energies = {sub: float(np.sum(dens[sub] * fock[sub])) for sub in subs}
     signed = {}
     for l in ls:
@@ -1049,6 +1231,39 @@ def solve_average(
         signed[l] = c * np.where(values < 0, -1.0, 1.0)
     return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
                              state.energy - kinetic_energy, state, setup.dropped)
+
+
+def _spherical_pair_coefficients(
+        occupancy: dict[Subshell, float]) -> dict[tuple[str, int, Subshell, Subshell], float]:
+    """Coefficients of ½ Σ_ab w_a w_b [F⁰(a, b) - ½ Σ_k (l_a k l_b; 0 0 0)² G^k(a, b)].
+
+    G^k(a, a) stands for F^k(a, a).
+
+    The interaction of every pair as if one of them were a closed shell: exact for
+    closed–closed and closed–open pairs in both the average and the Hund expressions
+    (a closed shell is spherical and has no net spin), and for a closed shell with
+    itself (1s²: F⁰; p⁶: 15F⁰ - (6/5)F²). Keys as in
+    :class:`zeffir.core.energy.EnergyExpression`.
+    """
+    from zeffir.core.energy import wigner_3j_squared
+
+    def square(l1: int, k: int, l2: int) -> float:
+        _, value = wigner_3j_squared(l1, k, l2, 0, 0, 0)
+        return value.numerator / value.denominator
+
+    out: dict[tuple[str, int, Subshell, Subshell], float] = {}
+    subs = sorted(occupancy, key=lambda s: (s.n, s.l))
+    for i, a in enumerate(subs):
+        wa = occupancy[a]
+        out["F", 0, a, a] = 0.5 * wa * wa * (1.0 - 0.5 * square(a.l, 0, a.l))
+        for k in range(2, 2 * a.l + 1, 2):
+            out["F", k, a, a] = -0.25 * wa * wa * square(a.l, k, a.l)
+        for b in subs[i + 1:]:
+            wb = occupancy[b]
+            out["F", 0, a, b] = wa * wb
+            for k in range(abs(a.l - b.l), a.l + b.l + 1, 2):
+                out["G", k, a, b] = -0.5 * wa * wb * square(a.l, k, b.l)
+    return out
 
 
 @dataclass(frozen=True)
@@ -1073,8 +1288,13 @@ class _Setup:
     start_kept: dict[int, FloatArray]
 
 
-def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int]) -> _Setup:
-    """One-electron matrices, Coulomb and exchange tensors and the orthogonalisation of each l."""
+def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int],
+           two_electron: bool = True) -> _Setup:
+    """One-electron matrices, Coulomb and exchange tensors and the orthogonalisation of each l.
+
+    ``two_electron=False`` leaves the (closed-shell) Coulomb and exchange tensors empty,
+    for :func:`solve_expression`, which builds its own per Slater integral.
+    """
     from zeffir.core.models._hf_integrals import (
         kinetic_matrix,
         nuclear_matrix,
@@ -1094,7 +1314,7 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
     # arranged so that K contracts with D^{l'}_rs like J does.
     coulomb: dict[tuple[int, int], FloatArray] = {}
     exchange: dict[tuple[int, int], FloatArray] = {}
-    for lam in ls:
+    for lam in ls if two_electron else []:
         for lp in ls:
             za, zb = zetas[lam], zetas[lp]
             coulomb[lam, lp] = rk_tensor(0, lam + 1, za, lam + 1, za, lp + 1, zb, lp + 1, zb)
@@ -1166,14 +1386,34 @@ def _check_trustworthy(configuration: Configuration, coefficients: dict[int, Flo
 
 def _check_coefficients(configuration: Configuration, coefficients: dict[int, FloatArray],
                         state: SCFState) -> None:
-    """Refuse orbitals whose coefficients cancel so much that rounding dominates."""
-    sums = {l: float(np.max(np.sum(np.abs(c), axis=0))) for l, c in coefficients.items()}
-    worst = max(sums, key=lambda l: sums[l])
-    if sums[worst] > MAX_COEFFICIENT_SUM:
+    """Refuse orbitals whose coefficients cancel so much that rounding dominates.
+
+    ``coefficients[l]`` columns are the subshells n = l+1, l+2, ... (an empty subshell's
+    column, a virtual orbital, is not checked).
+    """
+    occupied = {(s.n, s.l) for s, w in configuration.occupations if w > 0}
+    for l, c in coefficients.items():
+        for column in range(c.shape[1]):
+            lobes = column + 1
+            if (l + lobes, l) not in occupied:
+                continue
+            total, limit = float(np.sum(np.abs(c[:, column]))), MAX_COEFFICIENT_SUM * lobes**2
+            if total > limit:
+                raise HartreeFockError(
+                    f"{configuration.spec}: an occupied l = {l} orbital cancels coefficients up to "
+                    f"Σ|C| = {total:.3g} (limit {limit:g}); the basis is "
+                    "numerically linearly dependent for it and the energy would be dominated by "
+                    "rounding", state)
+
+
+def _check_virial(configuration: Configuration, kinetic: float, energy: float, state: SCFState) -> None:
+    """Refuse a solution that breaks the virial theorem (see :data:`VIRIAL_TOLERANCE`)."""
+    deviation = -(energy - kinetic) / kinetic - 2.0
+    if not abs(deviation) <= VIRIAL_TOLERANCE:
         raise HartreeFockError(
-            f"{configuration.spec}: an occupied l = {worst} orbital cancels coefficients up to "
-            f"Σ|C| = {sums[worst]:.3g} (limit {MAX_COEFFICIENT_SUM:g}); the basis is numerically "
-            "linearly dependent for it and the energy would be dominated by rounding", state)
+            f"{configuration.spec}: the basis cannot represent the orbitals of this configuration "
+            f"(virial ratio -V/T - 2 = {deviation:.1e}, limit {VIRIAL_TOLERANCE:g}); the energy "
+            "would be too high", state)
 
 
 def _radial_values(l: int, zetas: FloatArray, coefficients: FloatArray, r: float) -> float:
@@ -1210,41 +1450,47 @@ def _diis(history: list[tuple[dict[int, FloatArray], FloatArray]], ls: list[int]
 class HartreeFockModel:
     """Restricted Hartree–Fock orbitals of atoms and ions (Roothaan method).
 
+    Attributes
+    ----------
+    name, title, reference : str
+    average : bool
+        Minimise the average energy of the configuration (the ``hartree-fock-average``
+        model) instead of the energy of its Hund term (``hartree-fock``).
+
     Notes
     -----
-    :func:`solve_closed_shell` for closed shells and :func:`solve_open_shell` for closed
-    shells plus one open s, p or d subshell (the energy of the Hund ground term), in the
-    :func:`default_basis`. Each orbital is a
-    :class:`SlaterExpansionRadial`; its energy is the canonical orbital energy ε
-    (hartree) and the set's total energy the Hartree–Fock energy. ζ and Z_eff are
+    For the Hund term, :func:`solve`: :func:`solve_closed_shell` for closed shells,
+    :func:`solve_open_shell` for closed shells plus one open s, p, d or f subshell, and
+    :func:`solve_hund` for several open subshells (Cr 3d5 4s1 ⁷S, Gd 4f7 5d1 6s2 ⁹D) or
+    excited configurations with an empty lower subshell (Na [Ne] 4s1); with ``average``,
+    :func:`solve_average` for every configuration; all in the :func:`default_basis`. Each
+    orbital is a :class:`SlaterExpansionRadial`; its energy is the diagonal element of
+    its subshell's Fock operator (the canonical orbital energy ε for closed shells,
+    hartree) and the set's total energy the Hartree–Fock energy. ζ and Z_eff are
     effective values from ⟨1/r⟩ (a hydrogenic orbital of charge Z_eff has
     ⟨1/r⟩ = Z_eff/n²): Z_eff = n²⟨1/r⟩, ζ = Z_eff/n; n* is not defined (None).
-    An open f subshell raises
-    :class:`zeffir.core.ModelError` naming the reason.
 
     References
     ----------
     C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951); 32, 179 (1960); C. C. J. Roothaan
     and P. S. Bagus, Methods Comput. Phys. 2, 47 (1963); E. Clementi and
     C. Roetti, At. Data Nucl. Data Tables 14, 177 (1974); T. Koga et al., Int. J. Quantum
-    Chem. 71, 491 (1999) (the energies it reproduces).
+    Chem. 71, 491 (1999) (the energies it reproduces); J. C. Slater, *Quantum Theory of
+    Atomic Structure* (1960), vol. II (average of configuration).
     """
 
     name: str = "hartree-fock"
     title: str = "restricted Hartree–Fock"
     reference: str = "Roothaan 1951, 1960 (method); Koga et al. 1999 (energies)"
+    average: bool = False
 
     def build(self, configuration: Configuration) -> OrbitalSet:
-        """Solve the Roothaan equations for ``configuration`` and return its orbitals.
-
-        With several open subshells (excited configurations) the average of
-        configuration is used instead of the Hund ground term, and the notes say so.
-        """
-        open_subshells = [s for s, w in configuration.occupations if w < 2 * (2 * s.l + 1)]
-        average = len(open_subshells) > 1
-        result = solve(configuration, average=average)
+        """Solve the Roothaan equations for ``configuration`` and return its orbitals."""
+        result = solve(configuration, average=self.average)
         orbitals = []
         for sub, occ in configuration.occupations:
+            if occ == 0:
+                continue
             radial = SlaterExpansionRadial(sub.n, sub.l, sub.l + 1, result.basis.zetas(sub.l),
                                            result.coefficients[sub.l][:, sub.n - sub.l - 1])
             z_eff = sub.n**2 * radial.expectation(-1)
@@ -1253,9 +1499,27 @@ class HartreeFockModel:
                 (f"{sub.label}: ζ and Z_eff are effective values from <1/r> (Z_eff = n²<1/r>)",)))
         sizes = ", ".join(f"{count} {'spdfghik'[l]}"
                           for l, (_, _, count) in sorted(result.basis.sets.items()))
-        kind = ("closed shells" if not open_subshells
-                else "average of configuration: several open subshells" if average
-                else "one open subshell, energy of the Hund ground term")
+        open_subshells = [s for s, w in configuration.occupations if 0 < w < 2 * (2 * s.l + 1)]
+        if self.average:
+            kind = "average energy of the configuration"
+        elif not open_subshells:
+            kind = "closed shells, ¹S"
+        else:
+            kind = f"energy of the Hund term {_hund_term_label(configuration)}, one determinant"
+        notes = [f"restricted Hartree–Fock ({kind}), even-tempered Slater-type basis "
+                 f"({sizes}); virial ratio -V/T = {result.virial_ratio:.9f}"]
+        if _lower_subshells_empty(configuration):
+            notes.append("excited configuration: each orbital keeps n - l - 1 radial nodes, the empty "
+                         "lower subshells of its l being virtual orbitals below it")
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
-                          notes=(f"restricted Hartree–Fock ({kind}), even-tempered Slater-type basis "
-                                 f"({sizes}); virial ratio -V/T = {result.virial_ratio:.9f}",))
+                          notes=tuple(notes))
+
+
+def _hund_term_label(configuration: Configuration) -> str:
+    """The term of the Hund determinant (highest M_S, then M_L), e.g. '7S' for Cr 3d5 4s1."""
+    from zeffir.core.pairs import hund_determinant
+    from zeffir.core.terms import term_label
+
+    spin_orbitals = tuple(hund_determinant(configuration))
+    two_s = sum(p.spin for p in spin_orbitals)
+    return term_label(two_s / 2, sum(p.m for p in spin_orbitals))
