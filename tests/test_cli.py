@@ -86,3 +86,23 @@ def test_demo_runs_and_compares_three_models(capsys):
     for model in ("hydrogenic", "slater", "clementi"):
         assert f"model: {model}" in out
     assert "non-relativistic" in out
+
+
+def test_table_json_for_both_hartree_fock_models(capsys):
+    # The Hund-term model fills the energy and the orbital energies; the average model
+    # too, with a higher energy for C 2p² (the average lies above the ³P term) and no
+    # correlation energy (the average is not one state's energy).
+    hund = _json(capsys, "C", "--model", "hartree-fock")
+    average = _json(capsys, "C", "--model", "hartree-fock-average")
+    assert hund["total_energy_hartree"] == pytest.approx(-37.688619, abs=1e-6)  # as in the references
+    assert average["total_energy_hartree"] > hund["total_energy_hartree"] + 0.02
+    assert all(row["energy_hartree"] < 0 for row in hund["subshells"] + average["subshells"])
+    assert hund["correlation_energy_hartree"] is not None
+    assert average["correlation_energy_hartree"] is None
+    assert "Hund term 3P" in hund["notes"][0]
+
+
+def test_table_text_for_an_excited_configuration(capsys):
+    assert main(["table", "He 1s1 3s1", "--model", "hartree-fock"]) == 0
+    out = capsys.readouterr().out
+    assert "Hund term 3S" in out and "excited configuration" in out

@@ -59,6 +59,15 @@ def main(out: Path) -> int:
     shot("7-pair")
     model.update(left=Source("Li+ 1s1 2s1", "hydrogenic"), view="two-electron")
     shot("8-two-electron")
+    model.update(left=Source("Cr", "slater"), orbital=OrbitalChoice("3d"), view="radial",
+                 compare=CompareSettings(True, Source("Cr", "hartree-fock"), True))
+    shot("9-radial-slater-vs-hartree-fock")
+    model.update(left=Source("Gd", "hartree-fock"), orbital=OrbitalChoice("4f"),
+                 compare=CompareSettings(True, Source("Gd", "hartree-fock-average"), True))
+    shot("10-radial-hund-vs-average")
+    model.update(left=Source("Na [Ne] 4s1", "hartree-fock"), orbital=OrbitalChoice("4s"),
+                 compare=replace(model.state.compare, enabled=False))
+    shot("11-radial-excited")
     window.worker.shutdown()
     return 0
 

@@ -249,6 +249,8 @@ def _format_table(spec: str, model: str, units: str) -> str:
         )
     elif model == "hartree-fock":
         lines.append("correlation energy: no published exact energy for this configuration")
+    elif model == "hartree-fock-average":
+        lines.append("correlation energy: not given for the average of a configuration (not one state)")
     notes = [*orbitals.notes, *(note for row in rows for note in row.notes)]
     lines.extend(f"note: {note}" for note in dict.fromkeys(notes))
     return "\n".join(lines)

@@ -86,3 +86,12 @@ def test_radial_difference_uses_one_grid():
                                  comparison.difference.curves, strict=True):
         np.testing.assert_array_equal(left.x, right.x)
         np.testing.assert_allclose(diff.y, right.y - left.y)
+
+
+def test_difference_titles_name_only_what_differs():
+    from zeffir.scene._compare import difference_title
+
+    assert difference_title("Gd", "hartree-fock", "Gd", "hartree-fock-average") == \
+        "Gd: hartree-fock-average − hartree-fock"
+    assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (slater)"
+    assert difference_title("Ne", "slater", "Ar", "clementi") == "(Ar, clementi) − (Ne, slater)"

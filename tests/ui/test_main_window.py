@@ -88,6 +88,17 @@ def test_radial_comparison_difference(window):
     np.testing.assert_allclose(diff["total"][1], right["total"][1] - left["total"][1])
 
 
+def test_closing_a_comparison_fits_the_value_axis_to_the_left_curves(window):
+    # Xe's radial distribution peaks far higher than Na's; once the comparison is off,
+    # the hidden right-hand view must not keep the left one's value axis stretched.
+    window.model.update(compare=CompareSettings(True, Source("Xe", "slater"), False))
+    window.model.update(compare=CompareSettings(False, Source("Xe", "slater"), False))
+    left = window.radial_trio.views[0]
+    top = max(float(np.nanmax(y)) for _, y in left.curve_data().values())
+    y_low, y_high = left._plot.getViewBox().viewRange()[1]
+    assert top < y_high < 1.2 * top
+
+
 @pytest.mark.parametrize("suffix", [".png", ".svg", ".pdf"])
 def test_figure_export_writes_valid_files(window, tmp_path, suffix, warnings):
     path = tmp_path / f"figure{suffix}"

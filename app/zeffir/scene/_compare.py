@@ -11,7 +11,16 @@ from zeffir.scene._radial import Curve, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import SliceScene, colour_scale, contour_levels, slice_scene
 from zeffir.state import ViewState
 
-__all__ = ["RadialComparison", "SliceComparison", "compare_radial", "compare_slices"]
+__all__ = ["RadialComparison", "SliceComparison", "compare_radial", "compare_slices", "difference_title"]
+
+
+def difference_title(left_spec: str, left_model: str, right_spec: str, right_model: str) -> str:
+    """Title of a right − left panel, naming only what differs ("Gd: hartree-fock-average − hartree-fock")."""
+    if left_spec == right_spec:
+        return f"{left_spec}: {right_model} − {left_model}"
+    if left_model == right_model:
+        return f"{right_spec} − {left_spec} ({left_model})"
+    return f"({right_spec}, {right_model}) − ({left_spec}, {left_model})"
 
 
 @dataclass(frozen=True)
@@ -48,7 +57,7 @@ def compare_radial(state: ViewState) -> RadialComparison:
     )
     difference = replace(
         left,
-        title=f"({right.spec}, {right.model}) − ({left.spec}, {left.model})",
+        title=difference_title(left.spec, left.model, right.spec, right.model),
         y_label=f"Δ{left.y_label}",
         curves=diff,
         markers=(),
@@ -77,7 +86,7 @@ def compare_slices(state: ViewState) -> SliceComparison:
     d_range = colour_scale(delta, signed=True, log_scale=False, robust=not state.slice.full_range)
     difference = replace(
         left,
-        title=f"({right.spec}, {right.model}) − ({left.spec}, {left.model})",
+        title=difference_title(left.spec, left.model, right.spec, right.model),
         orbital=left.orbital,
         value_label=f"Δ{left.value_label.removeprefix('log₁₀ ')}",
         values=delta,

@@ -108,6 +108,8 @@ def _energy_summary(source: Source, orbitals: Any) -> str:
         else:
             text += (f"; exact non-relativistic {found[0]:.6f} Eh ({found[1]}); "
                      f"correlation energy {found[0] - total:.5f} Eh")
+    elif source.model == "hartree-fock-average":
+        text += "; the average over the configuration's terms, not one state (no correlation energy)"
     return text
 
 
@@ -135,6 +137,9 @@ class _Trio(QWidget):
     def set_columns(self, count: int) -> None:
         for i, view in enumerate(self.views):
             view.setVisible(i < count)
+        for view in self.views[:count]:
+            if isinstance(view, RadialView):
+                view.refit()
 
 
 class ExportOptions(QDialog):

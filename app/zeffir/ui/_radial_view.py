@@ -398,7 +398,10 @@ class RadialView(QWidget):
         while index < len(found):
             for ref, *flags in found[index]._peers:
                 peer = ref()
-                if peer is not None and flags[axis - 1] and all(peer is not f for f in found):
+                # A hidden peer (the right-hand view outside comparisons) keeps its last
+                # curves; they must not stretch the range of the views on screen.
+                if (peer is not None and flags[axis - 1] and not peer.isHidden()
+                        and all(peer is not f for f in found)):
                     found.append(peer)
             index += 1
         return found
@@ -415,6 +418,11 @@ class RadialView(QWidget):
         x0, x1 = min(b[0] for b in boxes), max(b[1] for b in boxes)
         return (self._view_x(x0), self._view_x(x1), min(min(b[2] for b in boxes), 0.0),
                 max(max(b[3] for b in boxes), 0.0))
+
+    def refit(self) -> None:
+        """Fit the range again (after linked views were shown or hidden)."""
+        self._bounds = None
+        self._fit_range()
 
     def _fit_range(self) -> None:
         own = self._data_bounds()
