@@ -95,7 +95,7 @@ def test_closing_a_comparison_fits_the_value_axis_to_the_left_curves(window):
     window.model.update(compare=CompareSettings(False, Source("Xe", "slater"), False))
     left = window.radial_trio.views[0]
     top = max(float(np.nanmax(y)) for _, y in left.curve_data().values())
-    y_low, y_high = left._plot.getViewBox().viewRange()[1]
+    _, y_high = left._plot.getViewBox().viewRange()[1]
     assert top < y_high < 1.2 * top
 
 
