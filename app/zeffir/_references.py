@@ -28,11 +28,13 @@ REFERENCES: Final[tuple[str, ...]] = (
     "T. Helgaker, P. Jørgensen and J. Olsen, Molecular Electronic-Structure Theory (2000) — "
     "real solid harmonics.",
     "A. Unsöld, Ann. Phys. 387, 355 (1927) — closed subshells are spherical.",
-    "C. Froese Fischer, The Hartree–Fock Method for Atoms (1977) — logarithmic radial grids.",
+    "C. Froese Fischer, The Hartree–Fock Method for Atoms (1977) — logarithmic radial grids; "
+    "term energies and orbitals of excited configurations.",
     "J. C. Slater, Quantum Theory of Atomic Structure (1960); R. D. Cowan, The Theory of Atomic "
     "Structure and Spectra (1981) — configuration energies, Slater integrals.",
     "G. Racah, Phys. Rev. 62, 438 (1942) — 3j symbols.",
-    "C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951) — Hartree–Fock in a basis.",
+    "C. C. J. Roothaan, Rev. Mod. Phys. 23, 69 (1951); 32, 179 (1960) — Hartree–Fock in a basis, "
+    "open shells.",
     "T. Koga et al., Int. J. Quantum Chem. 71, 491 (1999); C. F. Bunge et al., Phys. Rev. A 46, "
     "3691 (1992) — Hartree–Fock reference energies.",
     "P.-O. Löwdin, J. Chem. Phys. 18, 365 (1950) — symmetric orthogonalisation.",
