@@ -25,7 +25,7 @@ def test_model_fills_the_orbital_set(carbon):
     for orbital in carbon.orbitals:
         assert orbital.n_star == orbital.n
         assert orbital.z_eff == pytest.approx(orbital.zeta * orbital.n, rel=1e-15)
-        assert orbital.energy is None
+        assert orbital.energy is not None and orbital.energy < 0  # ⟨φ|F|φ⟩, see test_orbital_energies.py
     assert isinstance(carbon.orbital("2s").radial, OrthogonalisedSlaterRadial)
     assert carbon.orbital("2s").notes
 

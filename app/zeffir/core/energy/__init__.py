@@ -12,6 +12,7 @@ from zeffir.core.energy._energy import (
     average_energy,
     configuration_energy,
     evaluate_expression,
+    orbital_energies,
     hund_energy,
 )
 from zeffir.core.energy._exact import correlation_energy, exact_energy
@@ -37,6 +38,7 @@ __all__ = [
     "configuration_energy",
     "correlation_energy",
     "evaluate_expression",
+    "orbital_energies",
     "exact_energy",
     "hund_energy",
     "hund_energy_expression",

@@ -6,6 +6,7 @@ from dataclasses import dataclass
 from typing import Literal
 
 from zeffir.core._errors import QuantumNumberError
+from zeffir.core.config import Subshell
 from zeffir.core.energy._expressions import (
     EnergyExpression,
     average_energy_expression,
@@ -15,7 +16,7 @@ from zeffir.core.energy._integrals import DEFAULT_POINTS, RadialIntegrals, radia
 from zeffir.core.orbitals import OrbitalSet
 
 __all__ = ["EnergyKind", "EnergyTerms", "average_energy", "configuration_energy", "evaluate_expression",
-           "hund_energy"]
+           "hund_energy", "orbital_energies"]
 
 EnergyKind = Literal["hund", "average"]
 
@@ -75,6 +76,46 @@ def evaluate_expression(expression: EnergyExpression, integrals: RadialIntegrals
         value = integrals.slater_f(k, a, b) if kind == "F" else integrals.slater_g(k, a, b)
         repulsion += coefficient * value
     return EnergyTerms(float(kinetic), float(nuclear), float(repulsion))
+
+
+def orbital_energies(expression: EnergyExpression, integrals: RadialIntegrals) -> dict[Subshell, float]:
+    """Orbital energies ε_a = ⟨φ_a|F_a|φ_a⟩ of an energy expression's Fock operators.
+
+    Parameters
+    ----------
+    expression : EnergyExpression
+    integrals : RadialIntegrals
+        The radial integrals of the same subshells.
+
+    Returns
+    -------
+    dict
+        ``{Subshell: ε}`` (hartree).
+
+    Notes
+    -----
+    With ∂E/∂φ_a = 2 w_a F_a φ_a (w_a the occupancy), ε_a = I(a) + (1/w_a) Σ c X,
+    summed over the Slater integrals X = F^k(a, b), G^k(a, b) with coefficient c that
+    involve a, counted twice for F^k(a, a) (quartic in φ_a). For a self-consistent
+    solution these are the orbital energies of its Fock operators (closed shells:
+    Koopmans' estimates of ionisation energies); for other orbitals, the same
+    expectation values. Two-electron ions in one Slater-type function:
+    ε = ζ²/2 - Zζ + 5ζ/8.
+
+    References
+    ----------
+    Roothaan 1960; C. Froese Fischer, *The Hartree–Fock Method for Atoms* (1977), ch. 3.
+    """
+    sums: dict[Subshell, float] = {a: 0.0 for a in expression.one_electron}
+    for (kind, k, a, b), coefficient in expression.slater.items():
+        value = integrals.slater_f(k, a, b) if kind == "F" else integrals.slater_g(k, a, b)
+        if a == b:
+            sums[a] += 2.0 * coefficient * value
+        else:
+            sums[a] += coefficient * value
+            sums[b] += coefficient * value
+    return {a: float(integrals.kinetic(a) + integrals.nuclear(a) + sums[a] / w)
+            for a, w in expression.one_electron.items() if w > 0}
 
 
 def configuration_energy(orbitals: OrbitalSet, kind: EnergyKind = "hund",

@@ -449,7 +449,9 @@ class VariationalModel:
     orthonormal combinations of the Slater-type functions of that l (a minimal basis,
     as Clementi & Raimondi's); the reported ζ is each subshell's own exponent and
     Z_eff = ζn. The total energy is that of the Hund determinant (the M_L = L,
-    M_S = S component of the Hund term); no orbital energies are given. Heavier atoms
+    M_S = S component of the Hund term); each orbital energy is ⟨φ|F|φ⟩ of its
+    subshell's Fock operator for that energy (:func:`zeffir.core.energy.orbital_energies`),
+    the estimate a minimal basis gives (He: ε = ζ²/2 - Zζ + 5ζ/8). Heavier atoms
     take seconds per optimisation (each energy evaluation sums all Slater integrals).
 
     References
@@ -463,7 +465,14 @@ class VariationalModel:
     reference: str = "Clementi & Raimondi 1963 (method); Slater 1960"
 
     def build(self, configuration: Configuration) -> OrbitalSet:
+        from zeffir.core.energy import hund_energy_expression, orbital_energies, radial_integrals
+
         result = optimise_exponents(configuration)
+        provisional = OrbitalSet(configuration, self.name, tuple(
+            SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n), None, ())
+            for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
+                                                strict=True)))
+        epsilon = orbital_energies(hund_energy_expression(configuration), radial_integrals(provisional))
         orbitals = []
         for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
                                             strict=True):
@@ -471,7 +480,7 @@ class VariationalModel:
             if isinstance(radial, OrthogonalisedSlaterRadial):
                 notes = (f"{sub.label}: a combination of this configuration's {sub.label[-1]}-type "
                          "Slater functions (orthonormalised); ζ is the exponent of its own one",)
-            orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n), None,
-                                            notes))
+            orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n),
+                                            epsilon.get(sub), notes))
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
                           notes=("total energy: Hund determinant, single-zeta Slater-type functions",))
