@@ -12,8 +12,8 @@ from zeffir.core.energy._energy import (
     average_energy,
     configuration_energy,
     evaluate_expression,
-    orbital_energies,
     hund_energy,
+    orbital_energies,
 )
 from zeffir.core.energy._exact import correlation_energy, exact_energy
 from zeffir.core.energy._expressions import (
@@ -38,10 +38,10 @@ __all__ = [
     "configuration_energy",
     "correlation_energy",
     "evaluate_expression",
-    "orbital_energies",
     "exact_energy",
     "hund_energy",
     "hund_energy_expression",
+    "orbital_energies",
     "radial_integrals",
     "wigner_3j",
     "wigner_3j_squared",
