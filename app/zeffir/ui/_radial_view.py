@@ -400,7 +400,7 @@ class RadialView(QWidget):
                 peer = ref()
                 # A hidden peer (the right-hand view outside comparisons) keeps its last
                 # curves; they must not stretch the range of the views on screen.
-                if (peer is not None and flags[axis - 1] and not peer.isHidden()
+                if (peer is not None and flags[axis - 1] and not _hidden_on_purpose(peer)
                         and all(peer is not f for f in found)):
                     found.append(peer)
             index += 1
@@ -610,3 +610,8 @@ class RadialView(QWidget):
 
 def _node_tip(x: float, y: float, data: object) -> str:
     return str(data)
+
+
+def _hidden_on_purpose(widget: QWidget) -> bool:
+    """True for a widget hidden by setVisible(False), not for one merely never shown."""
+    return widget.isHidden() and widget.testAttribute(Qt.WidgetAttribute.WA_WState_ExplicitShowHide)
