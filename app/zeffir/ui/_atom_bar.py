@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from PySide6.QtCore import Qt, QTimer, Signal
-from PySide6.QtWidgets import QComboBox, QHBoxLayout, QLabel, QLineEdit, QWidget
+from PySide6.QtWidgets import QComboBox, QGridLayout, QHBoxLayout, QLabel, QLineEdit, QWidget
 
 from zeffir.core import ZeffirError, get_model, model_names, parse_spec
 from zeffir.core.orbitals import real_labels
@@ -31,7 +31,7 @@ class SourceFields(QWidget):
 
     source_edited = Signal(object)
 
-    def __init__(self, caption: str, parent: QWidget | None = None) -> None:
+    def __init__(self, caption: str, parent: QWidget | None = None, stacked: bool = False) -> None:
         super().__init__(parent)
         self._source = Source()
         self.spec_edit = QLineEdit()
@@ -54,15 +54,27 @@ class SourceFields(QWidget):
         self._debounce.setSingleShot(True)
         self._debounce.setInterval(250)
         self._debounce.timeout.connect(self._commit)
-        layout = QHBoxLayout(self)
-        layout.setContentsMargins(0, 0, 0, 0)
         label = QLabel(caption)
         label.setBuddy(self.spec_edit)
-        layout.addWidget(label)
-        layout.addWidget(self.spec_edit, 2)
-        layout.addWidget(QLabel("Model"))
-        layout.addWidget(self.model_box)
-        layout.addWidget(self.message, 3)
+        if stacked:
+            # For narrow places (the side panel): the model chooser gets its own row, so
+            # long model names stay readable.
+            grid = QGridLayout(self)
+            grid.setContentsMargins(0, 0, 0, 0)
+            grid.addWidget(label, 0, 0)
+            grid.addWidget(self.spec_edit, 0, 1)
+            grid.addWidget(QLabel("Model"), 1, 0)
+            grid.addWidget(self.model_box, 1, 1)
+            grid.addWidget(self.message, 2, 0, 1, 2)
+            grid.setColumnStretch(1, 1)
+        else:
+            layout = QHBoxLayout(self)
+            layout.setContentsMargins(0, 0, 0, 0)
+            layout.addWidget(label)
+            layout.addWidget(self.spec_edit, 2)
+            layout.addWidget(QLabel("Model"))
+            layout.addWidget(self.model_box)
+            layout.addWidget(self.message, 3)
         self.spec_edit.textEdited.connect(self._on_text)
         self.spec_edit.returnPressed.connect(self._commit)
         self.model_box.activated.connect(lambda _index: self._commit())

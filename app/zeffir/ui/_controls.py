@@ -179,7 +179,7 @@ class ViewControls(QWidget):
         box = QGroupBox("Side by side")
         layout = QVBoxLayout(box)
         self.compare_on = QCheckBox("Compare with a second model or atom")
-        self.compare_source = SourceFields("Versus")
+        self.compare_source = SourceFields("Versus", stacked=True)
         self.compare_source.spec_edit.setMinimumWidth(80)
         _shrinkable(self.compare_source.model_box, 10)
         self.compare_source.message.setWordWrap(True)
