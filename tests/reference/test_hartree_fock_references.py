@@ -218,3 +218,13 @@ def test_closed_shells_with_a_full_f_subshell(spec):
     assert result.energy == pytest.approx(F_CLOSED_SHELLS[spec], abs=5e-5)
     assert result.energy > F_CLOSED_SHELLS[spec] - 5e-6  # a basis-set energy lies above the limit
     assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
+
+
+# Anions (hartree), from memory (numerical Hartree–Fock; e.g. Clementi and Roetti 1974 list
+# the same to their precision): H⁻ -0.487930, F⁻ -99.459454. We get -0.4879297 and
+# -99.4594539. H⁻ lies above the hydrogen atom (-0.5): unbound at the Hartree–Fock level.
+@pytest.mark.parametrize(("spec", "energy"), [("H-", -0.487930), ("F-", -99.459454)])
+def test_anions(spec, energy):
+    result = solve(parse_spec(spec))
+    assert result.energy == pytest.approx(energy, abs=1e-6)
+    assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)

@@ -224,3 +224,34 @@ def test_expression_solver_takes_any_expression():
     configuration = parse_spec("N")
     direct = solve_expression(average_energy_expression(configuration)).energy
     assert direct == pytest.approx(solve(configuration, average=True).energy, abs=1e-12)
+
+
+# --- convergence tests at the rounding floor, and unbound anions --------------------------
+
+
+def test_convergence_accepts_a_stalled_gradient_only_at_the_rounding_floor():
+    check = _hartree_fock._Convergence()
+    energy = -46324.36  # Og: |E| sets the energy noise
+    # The ordinary criterion.
+    assert check.done(5e-10, 1e-11, -128.5)
+    # A gradient stuck at 1e-8 with energy scatter ±1e-7 Eh (2e-12 of |E|) passes only
+    # after FLOOR_ITERATIONS such iterations in a row ...
+    floor = _hartree_fock.FLOOR_ITERATIONS
+    results = [check.done(1e-8, (-1) ** i * 1e-7, energy) for i in range(floor)]
+    assert results == [False] * (floor - 1) + [True]
+    # ... and a larger change starts the count again.
+    check = _hartree_fock._Convergence()
+    assert not any(check.done(1e-8, 1e-7, energy) for _ in range(floor - 1))
+    assert not check.done(1e-8, 1e-5, energy)
+    assert not check.done(1e-8, 1e-7, energy)
+    # A gradient above the floor never converges.
+    check = _hartree_fock._Convergence()
+    assert not any(check.done(1e-6, 0.0, energy) for _ in range(3 * floor))
+
+
+def test_unbound_dianion_fails_with_the_reason():
+    # O²⁻ has no bound Hartree–Fock solution as a free ion (its outer 2p electrons are
+    # unbound); the run must fail with the last residual, not return an energy.
+    with pytest.raises(_hartree_fock.HartreeFockError,
+                       match=r"no self-consistency .* multiply charged anion"):
+        solve(parse_spec("O2-"))

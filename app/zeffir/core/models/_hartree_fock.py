@@ -49,6 +49,14 @@ ENERGY_TOLERANCE = 1e-11
 #: Eu at -10423.5 Eh once the gradient is below 1e-10), so the energy test cannot be
 #: tighter than this.
 ENERGY_NOISE = 1e-12
+#: For the heaviest atoms the orbital gradient itself stalls at a rounding floor above
+#: :data:`COMMUTATOR_TOLERANCE` (Og: 3e-9 to 3e-8, the energy scattering by ±1e-7 Eh
+#: of -46324 Eh). A run whose gradient stays below this and whose energy changes by
+#: less than :data:`FLOOR_ENERGY_NOISE` of |E| for :data:`FLOOR_ITERATIONS`
+#: consecutive iterations has converged as far as double precision allows.
+FLOOR_RESIDUAL = 1e-7
+FLOOR_ENERGY_NOISE = 1e-11
+FLOOR_ITERATIONS = 8
 #: Overlap eigenvalues below this (relative to the largest) are dropped as linear dependence.
 LINEAR_DEPENDENCE = 1e-11
 #: The iteration starts in the basis without the combinations whose overlap eigenvalue is
@@ -424,9 +432,40 @@ def _exchange_weight(l1: int, k: int, l2: int) -> float:
 
 
 
-def _energy_settled(change: float, energy: float) -> bool:
-    """The energy criterion of convergence (see :data:`ENERGY_TOLERANCE`)."""
-    return abs(change) < max(ENERGY_TOLERANCE, ENERGY_NOISE * abs(energy))
+def _no_convergence(configuration: Configuration, max_iterations: int,
+                    state: SCFState | None) -> HartreeFockError:
+    """The error for a run that ran out of iterations, with the last residual."""
+    hint = ""
+    if configuration.charge <= -2:
+        hint = ("; a free multiply charged anion is not bound at this level of theory, so its "
+                "outer electrons have no self-consistent orbital to settle in")
+    return HartreeFockError(
+        f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
+        f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
+        f"energy change {state.energy_change if state else math.nan:.2e} Eh){hint}", state)
+
+
+class _Convergence:
+    """The stop test of the SCF loops.
+
+    Converged when the gradient is below :data:`COMMUTATOR_TOLERANCE` and the energy
+    settled (:data:`ENERGY_TOLERANCE`, or :data:`ENERGY_NOISE` of |E|), or when the run
+    sits at the rounding floor of a heavy atom for :data:`FLOOR_ITERATIONS` iterations
+    (see :data:`FLOOR_RESIDUAL`).
+    """
+
+    def __init__(self) -> None:
+        self.at_floor = 0
+
+    def done(self, residual: float, change: float, energy: float) -> bool:
+        settled = abs(change) < max(ENERGY_TOLERANCE, ENERGY_NOISE * abs(energy))
+        if residual < COMMUTATOR_TOLERANCE and settled:
+            return True
+        if residual < FLOOR_RESIDUAL and abs(change) < FLOOR_ENERGY_NOISE * abs(energy):
+            self.at_floor += 1
+        else:
+            self.at_floor = 0
+        return self.at_floor >= FLOOR_ITERATIONS
 
 
 def _stop_if_asked(configuration: Configuration, should_stop: Callable[[], bool] | None,
@@ -562,6 +601,7 @@ def solve_closed_shell(
     history: list[tuple[dict[int, FloatArray], FloatArray]] = []
     energy_before = math.inf
     state: SCFState | None = None
+    convergence = _Convergence()
     for iteration in range(1, max_iterations + 1):
         _stop_if_asked(configuration, should_stop, state)
         density = {l: coefficients[l] @ coefficients[l].T for l in ls}
@@ -583,7 +623,7 @@ def solve_closed_shell(
             energy_before = energy
             coefficients, energies = diagonalise(fock)
             continue
-        if residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
+        if convergence.done(residual, change, energy):
             # Orbitals and energies of the converged Fock matrix itself (not an extrapolation).
             coefficients, energies = diagonalise(fock)
             break
@@ -592,10 +632,7 @@ def solve_closed_shell(
         del history[:-DIIS_SIZE]
         coefficients, energies = diagonalise(_diis(history, ls))
     else:
-        raise HartreeFockError(
-            f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
-            f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
-            f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
+        raise _no_convergence(configuration, max_iterations, state)
     kinetic_energy = float(sum(weight[l] * np.sum(density[l] * kinetic[l]) for l in ls))
     _check_trustworthy(configuration, coefficients, density, core, weight, state)
     _check_virial(configuration, kinetic_energy, state.energy, state)
@@ -821,6 +858,7 @@ def solve_open_shell(
     history: list[tuple[dict[int, FloatArray], FloatArray]] = []
     energy_before = math.inf
     state: SCFState | None = None
+    convergence = _Convergence()
     for iteration in range(1, max_iterations + 1):
         _stop_if_asked(configuration, should_stop, state)
         d_c, d_o = split(coefficients)
@@ -838,7 +876,7 @@ def solve_open_shell(
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
-        elif residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
+        elif convergence.done(residual, change, energy):
             # Keep the orbitals whose energy this is: only the closed ones of each l are made
             # canonical (a rotation among them changes nothing). A final diagonalisation of R
             # would rotate closed into open orbitals by ~residual/Δε, which moves the
@@ -851,10 +889,7 @@ def solve_open_shell(
         del history[:-DIIS_SIZE]
         coefficients, energies = diagonalise(_diis(history, ls))
     else:
-        raise HartreeFockError(
-            f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
-            f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
-            f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
+        raise _no_convergence(configuration, max_iterations, state)
     kinetic_energy = float(sum(weight[l] * np.sum(d_c[l] * kinetic[l]) for l in ls)
                            + w_o * np.sum(d_o * kinetic[lo]))
     _check_coefficients(configuration, coefficients, state)
@@ -1192,6 +1227,7 @@ def solve_expression(
     history: list[tuple[dict[int, FloatArray], FloatArray]] = []
     energy_before = math.inf
     state: SCFState | None = None
+    convergence = _Convergence()
     for iteration in range(1, max_iterations + 1):
         _stop_if_asked(configuration, should_stop, state)
         fock, energy = fock_of(coefficients)
@@ -1208,17 +1244,14 @@ def solve_expression(
         if starting and residual < START_RESIDUAL:
             _switch_to_full_basis(setup, transform, kept, history)
             starting = False
-        elif residual < COMMUTATOR_TOLERANCE and _energy_settled(change, energy):
+        elif convergence.done(residual, change, energy):
             break
         energy_before = energy
         history.append((effective(coefficients, fock), error))
         del history[:-DIIS_SIZE]
         coefficients = diagonalise(_diis(history, ls))
     else:
-        raise HartreeFockError(
-            f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
-            f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
-            f"energy change {state.energy_change if state else math.nan:.2e} Eh)", state)
+        raise _no_convergence(configuration, max_iterations, state)
     dens = densities(coefficients)
     kinetic_energy = sum(occ[sub] * float(np.sum(dens[sub] * setup.kinetic[sub.l])) for sub in subs)
     _check_coefficients(configuration, coefficients, state)
