@@ -255,3 +255,15 @@ def test_unbound_dianion_fails_with_the_reason():
     with pytest.raises(_hartree_fock.HartreeFockError,
                        match=r"no self-consistency .* multiply charged anion"):
         solve(parse_spec("O2-"))
+
+
+def test_hund_solver_reports_progress_and_can_be_cancelled():
+    seen = []
+
+    def stop():
+        return len(seen) >= 2
+
+    with pytest.raises(_hartree_fock.HartreeFockCancelled, match="cancelled") as info:
+        solve_hund(parse_spec("Cr"), progress=seen.append, should_stop=stop)
+    assert [s.iteration for s in seen] == [1, 2]
+    assert info.value.state is seen[-1]
