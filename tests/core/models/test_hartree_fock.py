@@ -533,38 +533,20 @@ def test_model_builds_open_d_shell_atoms():
         assert orbital.radial.nodes().size == orbital.n - orbital.l - 1
 
 
-def _orbital_set(result, rotate=None):
-    """The result's orbitals as an OrbitalSet; ``rotate`` = (l, i, j, angle) mixes two columns."""
-    from zeffir.core.orbitals import OrbitalSet, SubshellOrbital
-
-    coefficients = {l: c.copy() for l, c in result.coefficients.items()}
-    if rotate is not None:
-        l, i, j, angle = rotate
-        ci, cj = coefficients[l][:, i].copy(), coefficients[l][:, j].copy()
-        coefficients[l][:, i] = np.cos(angle) * ci + np.sin(angle) * cj
-        coefficients[l][:, j] = -np.sin(angle) * ci + np.cos(angle) * cj
-    orbitals = []
-    for sub, occ in result.configuration.occupations:
-        radial = SlaterExpansionRadial(sub.n, sub.l, sub.l + 1, result.basis.zetas(sub.l),
-                                       coefficients[sub.l][:, sub.n - sub.l - 1])
-        orbitals.append(SubshellOrbital(sub, occ, radial, 1.0, 1.0, None, None, ()))
-    return OrbitalSet(result.configuration, "test", tuple(orbitals))
-
-
 @pytest.mark.parametrize("spec", ["He 1s1 2s1", "Li 1s2 2p1", "Ne 1s2 2s2 2p5 3s1", "C"])
-def test_average_energy_agrees_with_a_grid_evaluation(spec):
+def test_average_energy_agrees_with_a_grid_evaluation(spec, as_orbital_set):
     # Cross-implementation: zeffir.core.energy evaluates the average-energy expression
     # with the returned radial functions on its own √r grid. We get differences of
     # 1e-11 (He) to 1.5e-8 Eh (Ne 2p5 3s1); 1e-7 allows for the grid error seen for
     # heavier atoms (~1e-7 at 8001 points, see the Hund-term test above).
     result = solve(parse_spec(spec), average=True)
-    terms = configuration_energy(_orbital_set(result), "average", points=8001)
+    terms = configuration_energy(as_orbital_set(result), "average", points=8001)
     assert terms.total == pytest.approx(result.energy, abs=1e-7)
     # Virial theorem at the variational solution, to about the basis error.
     assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
 
 
-def test_average_energy_is_stationary_under_orbital_rotations():
+def test_average_energy_is_stationary_under_orbital_rotations(as_orbital_set):
     # He 1s1 2s1: both subshells open with equal occupancy, the case the combined
     # operator treats specially. Rotating 1s into 2s changes E_av only to second order;
     # evaluated on the grid of zeffir.core.energy. Ne 2p5 3s1: the closed 2s into the
@@ -573,7 +555,7 @@ def test_average_energy_is_stationary_under_orbital_rotations():
         result = solve(parse_spec(spec), average=True)
 
         def energy(angle, result=result, rotate=rotate):
-            orbitals = _orbital_set(result, (*rotate, angle))
+            orbitals = as_orbital_set(result, (*rotate, angle))
             return configuration_energy(orbitals, "average", points=8001).total
 
         step = 1e-3

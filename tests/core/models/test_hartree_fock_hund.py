@@ -11,7 +11,6 @@ from zeffir.core.models import _hartree_fock
 from zeffir.core.models._hartree_fock import (
     EvenTemperedBasis,
     HartreeFockModel,
-    SlaterExpansionRadial,
     _spherical_pair_coefficients,
     default_basis,
     solve,
@@ -21,23 +20,6 @@ from zeffir.core.models._hartree_fock import (
     solve_open_shell,
 )
 from zeffir.core.models._hf_integrals import overlap_matrix
-from zeffir.core.orbitals import OrbitalSet, SubshellOrbital
-
-
-def _orbital_set(result, rotate=None):
-    """The occupied orbitals of ``result``; ``rotate`` = (l, i, j, angle) mixes columns i and j."""
-    coefficients = {l: c.copy() for l, c in result.coefficients.items()}
-    if rotate is not None:
-        l, i, j, angle = rotate
-        ci, cj = coefficients[l][:, i].copy(), coefficients[l][:, j].copy()
-        coefficients[l][:, i] = np.cos(angle) * ci + np.sin(angle) * cj
-        coefficients[l][:, j] = -np.sin(angle) * ci + np.cos(angle) * cj
-    orbitals = []
-    for sub, occ in result.configuration.occupations:
-        radial = SlaterExpansionRadial(sub.n, sub.l, sub.l + 1, result.basis.zetas(sub.l),
-                                       coefficients[sub.l][:, sub.n - sub.l - 1])
-        orbitals.append(SubshellOrbital(sub, occ, radial, 1.0, 1.0, None, None, ()))
-    return OrbitalSet(result.configuration, "test", tuple(orbitals))
 
 
 @pytest.fixture(scope="module")
@@ -72,12 +54,12 @@ def test_spherical_pair_part_is_the_expression_of_closed_shells():
 
 
 @pytest.mark.parametrize("spec", ["Cr", "He 1s1 3s1", "Na [Ne] 4s1", "He 1s1 3p1"])
-def test_hund_energy_agrees_with_a_grid_evaluation(spec):
+def test_hund_energy_agrees_with_a_grid_evaluation(spec, as_orbital_set):
     # Cross-implementation: zeffir.core.energy evaluates the Hund-determinant expression
     # with the returned radial functions on its own √r grid (16001 points). We get
     # 2e-8 Eh (Cr) and below 1e-9 Eh for the light excited configurations.
     result = solve(parse_spec(spec))
-    terms = configuration_energy(_orbital_set(result), "hund", points=16001)
+    terms = configuration_energy(as_orbital_set(result), "hund", points=16001)
     assert terms.total == pytest.approx(result.energy, abs=2e-7)
 
 
@@ -86,14 +68,14 @@ def test_hund_energy_agrees_with_a_grid_evaluation(spec):
     ("Na [Ne] 4s1", (0, 1, 3)),     # closed 2s into the open 4s across the empty 3s
     ("Cr", (0, 3, 2)),              # closed 3s into the open 4s (column 2 = 3s, 3 = 4s)
 ])
-def test_hund_energy_is_stationary_under_orbital_rotations(spec, rotate):
+def test_hund_energy_is_stationary_under_orbital_rotations(spec, rotate, as_orbital_set):
     # A rotation between two occupied orbitals of one l changes the energy only at second
     # order at the solution. (Not 1s-3s in He 1s1 3s1 ³S: both spins up, the determinant
     # itself is invariant under that rotation.) |slope| must be below 1e-5 of the curvature.
     result = solve(parse_spec(spec))
 
     def energy(angle):
-        return configuration_energy(_orbital_set(result, (*rotate, angle)), "hund", points=16001).total
+        return configuration_energy(as_orbital_set(result, (*rotate, angle)), "hund", points=16001).total
 
     step = 1e-3
     e0, plus, minus = energy(0.0), energy(step), energy(-step)
@@ -193,11 +175,11 @@ def europium():
     return solve_open_shell(parse_spec("Eu"))
 
 
-def test_open_f_subshell_energy_agrees_with_a_grid_evaluation(europium):
+def test_open_f_subshell_energy_agrees_with_a_grid_evaluation(europium, as_orbital_set):
     # Eu 4f7 6s2 ⁸S: the open 4f beside closed shells up to 5p and 6s. Grid evaluation at
     # 32001 points (the error falls as h⁴: 2.6e-5, 1.6e-6 Eh at 8001 and 16001 points);
     # we get 1e-7 Eh.
-    terms = configuration_energy(_orbital_set(europium), "hund", points=32001)
+    terms = configuration_energy(as_orbital_set(europium), "hund", points=32001)
     assert terms.total == pytest.approx(europium.energy, abs=5e-7)
     assert europium.virial_ratio == pytest.approx(2.0, abs=5e-8)
     assert europium.orbital_energies[Subshell(4, 3)] < 0
@@ -209,11 +191,11 @@ def test_open_f_subshell_through_the_hund_solver(europium):
     assert solve_hund(parse_spec("Eu")).energy == pytest.approx(europium.energy, abs=1e-8)
 
 
-def test_f_and_d_open_together():
+def test_f_and_d_open_together(as_orbital_set):
     # Ce 4f1 5d1 6s2: two open subshells of different l with F^k(4f, 5d), k = 2, 4 and
     # G^k, k = 1, 3, 5 in the Hund expression (³H). We get 3e-8 Eh from the grid.
     result = solve(parse_spec("Ce"))
-    terms = configuration_energy(_orbital_set(result), "hund", points=32001)
+    terms = configuration_energy(as_orbital_set(result), "hund", points=32001)
     assert terms.total == pytest.approx(result.energy, abs=5e-7)
     assert result.virial_ratio == pytest.approx(2.0, abs=5e-8)
     assert _hartree_fock._hund_term_label(parse_spec("Ce")) == "3H"

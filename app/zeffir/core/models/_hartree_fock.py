@@ -640,12 +640,7 @@ def solve_closed_shell(
     for l in ls:
         for i, n in enumerate(range(l + 1, l + 1 + layout[l])):
             orbital_energies[Subshell(n, l)] = float(energies[l][i])
-    signed = {}
-    for l in ls:
-        # Phase convention: every orbital positive near the nucleus.
-        c = coefficients[l].copy()
-        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
-        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    signed = _positive_at_the_nucleus(coefficients, zetas)
     return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
                              state.energy - kinetic_energy, state, dropped)
 
@@ -898,11 +893,7 @@ def solve_open_shell(
     for l in ls:
         for i, n in enumerate(range(l + 1, l + 1 + layout[l])):
             orbital_energies[Subshell(n, l)] = float(energies[l][i])
-    signed = {}
-    for l in ls:
-        c = coefficients[l].copy()
-        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
-        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    signed = _positive_at_the_nucleus(coefficients, zetas)
     return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
                              state.energy - kinetic_energy, state, setup.dropped)
 
@@ -1257,11 +1248,7 @@ def solve_expression(
     _check_coefficients(configuration, coefficients, state)
     _check_virial(configuration, kinetic_energy, state.energy, state)
     orbital_energies = {sub: float(np.sum(dens[sub] * fock[sub])) for sub in subs}
-    signed = {}
-    for l in ls:
-        c = coefficients[l].copy()
-        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
-        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    signed = _positive_at_the_nucleus(coefficients, zetas)
     return HartreeFockResult(configuration, basis, signed, orbital_energies, kinetic_energy,
                              state.energy - kinetic_energy, state, setup.dropped)
 
@@ -1447,6 +1434,16 @@ def _check_virial(configuration: Configuration, kinetic: float, energy: float, s
             f"{configuration.spec}: the basis cannot represent the orbitals of this configuration "
             f"(virial ratio -V/T - 2 = {deviation:.1e}, limit {VIRIAL_TOLERANCE:g}); the energy "
             "would be too high", state)
+
+
+def _positive_at_the_nucleus(coefficients: dict[int, FloatArray],
+                             zetas: dict[int, FloatArray]) -> dict[int, FloatArray]:
+    """The phase convention: every orbital (column) positive near the nucleus."""
+    signed = {}
+    for l, c in coefficients.items():
+        values = np.array([_radial_values(l, zetas[l], c[:, i], 0.0) for i in range(c.shape[1])])
+        signed[l] = c * np.where(values < 0, -1.0, 1.0)
+    return signed
 
 
 def _radial_values(l: int, zetas: FloatArray, coefficients: FloatArray, r: float) -> float:
