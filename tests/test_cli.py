@@ -100,6 +100,8 @@ def test_table_json_for_both_hartree_fock_models(capsys):
     assert hund["correlation_energy_hartree"] is not None
     assert average["correlation_energy_hartree"] is None
     assert "Hund term 3P" in hund["notes"][0]
+    assert hund["virial_ratio"] == pytest.approx(2.0, abs=1e-6)
+    assert _json(capsys, "C")["virial_ratio"] is None  # Slater's rules minimise nothing
 
 
 def test_table_text_for_an_excited_configuration(capsys):

@@ -188,6 +188,7 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
             for row in rows
         ],
         "notes": list(orbitals.notes),
+        "virial_ratio": _finite_or_none(orbitals.virial_ratio),
         **_correlation_fields(configuration, model, orbitals.total_energy),
     }
 
@@ -238,8 +239,10 @@ def _format_table(spec: str, model: str, units: str) -> str:
             f"{num(row.r_max, length):>11} {num(row.energy, energy):>12}"
         )
     lines.append("")
+    virial = ("" if orbitals.virial_ratio is None
+              else f"   virial ratio −V/T: {orbitals.virial_ratio:.9f}")
     lines.append(f"electrons: {configuration.n_electrons}   "
-                 f"total energy: {num(orbitals.total_energy, energy)} {eu}")
+                 f"total energy: {num(orbitals.total_energy, energy)} {eu}{virial}")
     extra = _correlation_fields(configuration, model, orbitals.total_energy)
     if extra.get("exact_energy_hartree") is not None:
         lines.append(

@@ -265,5 +265,10 @@ def test_energy_line_shows_the_correlation_energy_for_hartree_fock(window):
     text = window.energy_line.text()
     # E_exact (Chakravorty et al. 1993) − E_HF (≈ −128.547098) ≈ −0.3905 Eh.
     assert "-128.547098" in text and "correlation energy -0.3905" in text
+    assert "−V/T = 2.00000000" in text
     window.model.update(left=Source("Ne", "clementi"))
     assert "no total energy" in window.energy_line.text()
+    # The average model: an energy, but not one state's, so no correlation energy.
+    window.model.update(left=Source("Ne 1s2 2s2 2p5 3s1", "hartree-fock-average"))
+    text = window.energy_line.text()
+    assert "not one state" in text and "correlation" in text and "exact non-relativistic" not in text

@@ -101,6 +101,8 @@ def _energy_summary(source: Source, orbitals: Any) -> str:
     if total is None:
         return f"{orbitals.configuration.spec}: the {source.model} model defines no total energy"
     text = f"{orbitals.configuration.spec} ({source.model}): total energy {total:.6f} Eh"
+    if orbitals.virial_ratio is not None:
+        text += f" (−V/T = {orbitals.virial_ratio:.8f})"
     if source.model == "hartree-fock":
         found = exact_energy(orbitals.configuration)
         if found is None:

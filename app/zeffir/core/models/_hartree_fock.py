@@ -1542,7 +1542,7 @@ class HartreeFockModel:
             notes.append("excited configuration: each orbital keeps n - l - 1 radial nodes, the empty "
                          "lower subshells of its l being virtual orbitals below it")
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
-                          notes=tuple(notes))
+                          notes=tuple(notes), virial_ratio=result.virial_ratio)
 
 
 def _hund_term_label(configuration: Configuration) -> str:

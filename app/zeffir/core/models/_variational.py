@@ -483,4 +483,5 @@ class VariationalModel:
             orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n),
                                             epsilon.get(sub), notes))
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
-                          notes=("total energy: Hund determinant, single-zeta Slater-type functions",))
+                          notes=("total energy: Hund determinant, single-zeta Slater-type functions",),
+                          virial_ratio=-result.potential / result.kinetic)

@@ -76,6 +76,9 @@ class OrbitalSet:
         Total energy (hartree) where the model defines one.
     notes : tuple of str
         Remarks that apply to the whole set.
+    virial_ratio : float or None
+        -V/T of the total energy where the model minimises it (2 at a variational
+        optimum that includes the scale of the orbitals).
     memo : dict
         Derived data cached by evaluators (e.g. a tabulated density profile); the
         set itself never changes, so cached values stay valid.
@@ -86,6 +89,7 @@ class OrbitalSet:
     orbitals: tuple[SubshellOrbital, ...]
     total_energy: float | None = None
     notes: tuple[str, ...] = ()
+    virial_ratio: float | None = None
     memo: dict[str, object] = field(default_factory=dict, compare=False, repr=False)
 
     def orbital(self, label: str | Subshell) -> SubshellOrbital:
