@@ -432,13 +432,21 @@ def _exchange_weight(l1: int, k: int, l2: int) -> float:
 
 
 
+def _anion_hint(configuration: Configuration) -> str:
+    """Why an anion may fail: its extra electron may not be bound at this level of theory."""
+    if configuration.charge <= -2:
+        return ("; a free multiply charged anion is not bound at this level of theory, so its "
+                "outer electrons have no self-consistent orbital to settle in")
+    if configuration.charge < 0:
+        return ("; for an anion this usually means the extra electron is not bound at the "
+                "Hartree–Fock level (Be⁻, Mg⁻, Ne⁻), so no orbital of the basis holds it")
+    return ""
+
+
 def _no_convergence(configuration: Configuration, max_iterations: int,
                     state: SCFState | None) -> HartreeFockError:
     """The error for a run that ran out of iterations, with the last residual."""
-    hint = ""
-    if configuration.charge <= -2:
-        hint = ("; a free multiply charged anion is not bound at this level of theory, so its "
-                "outer electrons have no self-consistent orbital to settle in")
+    hint = _anion_hint(configuration)
     return HartreeFockError(
         f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
         f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
@@ -1360,8 +1368,9 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
         if dropped[l]:
             kept[l] = vectors[:, keep] @ vectors[:, keep].T
         start = values > max(START_LINEAR_DEPENDENCE, LINEAR_DEPENDENCE) * values[-1]
-        if int(np.count_nonzero(start)) < layout[l] or max(ls) < 2:
-            # Without d electrons the plain iteration converges (He–Ar, K, Ca tested).
+        if int(np.count_nonzero(start)) < layout[l] or (max(ls) < 2 and configuration.charge >= 0):
+            # Without d electrons the plain iteration converges (He–Ar, K, Ca tested);
+            # anions start reduced too (Na⁻ diverged from the bare-nucleus start).
             start = keep
         start_transform[l] = vectors[:, start] / np.sqrt(values[start])
         if np.count_nonzero(~start):
@@ -1423,7 +1432,7 @@ def _check_coefficients(configuration: Configuration, coefficients: dict[int, Fl
                     f"{configuration.spec}: an occupied l = {l} orbital cancels coefficients up to "
                     f"Σ|C| = {total:.3g} (limit {limit:g}); the basis is "
                     "numerically linearly dependent for it and the energy would be dominated by "
-                    "rounding", state)
+                    f"rounding{_anion_hint(configuration)}", state)
 
 
 def _check_virial(configuration: Configuration, kinetic: float, energy: float, state: SCFState) -> None:
@@ -1433,7 +1442,7 @@ def _check_virial(configuration: Configuration, kinetic: float, energy: float, s
         raise HartreeFockError(
             f"{configuration.spec}: the basis cannot represent the orbitals of this configuration "
             f"(virial ratio -V/T - 2 = {deviation:.1e}, limit {VIRIAL_TOLERANCE:g}); the energy "
-            "would be too high", state)
+            f"would be too high{_anion_hint(configuration)}", state)
 
 
 def _positive_at_the_nucleus(coefficients: dict[int, FloatArray],
