@@ -64,7 +64,8 @@ LINEAR_DEPENDENCE = 1e-11
 #: below :data:`START_RESIDUAL`: far from self-consistency, near-null combinations with
 #: strongly cancelling coefficients can turn rounding into wild Fock matrices (Sr, Cs
 #: and Ba diverged from the bare-nucleus start without it). Only for atoms with d
-#: electrons; lighter ones iterate in the full basis from the start.
+#: electrons and for anions (Na⁻); lighter neutral atoms and cations iterate in the
+#: full basis from the start.
 START_LINEAR_DEPENDENCE = 1e-8
 START_RESIDUAL = 1e-2
 MAX_ITERATIONS = 200
