@@ -578,7 +578,7 @@ def solve_closed_shell(
     setup = _setup(configuration, basis, layout)
     ls, weight, zetas = setup.ls, setup.weight, setup.zetas
     overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
-    coulomb, exchange = setup.coulomb, setup.exchange
+    interaction = setup.interaction
     dropped = setup.dropped
     # Start in the reduced basis; swapped (in place, for the closures) for the full one.
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
@@ -598,7 +598,7 @@ def solve_closed_shell(
         for lam in ls:
             f = core[lam].copy()
             for lp in ls:
-                f += weight[lp] * np.tensordot(coulomb[lam, lp] - exchange[lam, lp], density[lp],
+                f += weight[lp] * np.tensordot(interaction[lam, lp], density[lp],
                                                axes=([2, 3], [0, 1]))
             out[lam] = f
         return out
@@ -776,7 +776,7 @@ def solve_open_shell(
     setup = _setup(configuration, basis, layout)
     ls, weight, zetas = setup.ls, setup.weight, setup.zetas
     overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
-    coulomb, exchange = setup.coulomb, setup.exchange
+    interaction = setup.interaction
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
     starting = bool(setup.start_kept)
     lo = open_sub.l
@@ -799,12 +799,12 @@ def solve_open_shell(
         for lam in ls:
             g = np.zeros_like(core[lam])
             for lp in ls:
-                g += weight[lp] * np.tensordot(coulomb[lam, lp] - exchange[lam, lp], d_c[lp],
+                g += weight[lp] * np.tensordot(interaction[lam, lp], d_c[lp],
                                                axes=([2, 3], [0, 1]))
             two[lam] = g
         f_c = {}
         for lam in ls:
-            g_open = np.tensordot(coulomb[lam, lo] - exchange[lam, lo], d_o, axes=([2, 3], [0, 1]))
+            g_open = np.tensordot(interaction[lam, lo], d_o, axes=([2, 3], [0, 1]))
             f_c[lam] = core[lam] + two[lam] + w_o * g_open
         self_part = sum((a * np.tensordot(self_tensors[k], d_o, axes=([2, 3], [0, 1]))
                          for k, a in self_terms.items() if a != 0.0), np.zeros_like(d_o))
@@ -1142,7 +1142,7 @@ def solve_expression(
     basis = basis or default_basis(configuration)
     setup = _setup(configuration, basis, layout)
     ls, zetas, overlap, core = setup.ls, setup.zetas, setup.overlap, setup.core
-    coulomb, exchange = setup.coulomb, setup.exchange
+    interaction = setup.interaction
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
     starting = bool(setup.start_kept)
     full = {sub: occ[sub] == 2 * (2 * sub.l + 1) for sub in subs}
@@ -1182,7 +1182,7 @@ def solve_expression(
         for lam in ls:
             f = np.zeros_like(core[lam])
             for lp in ls:
-                f += np.tensordot(coulomb[lam, lp] - exchange[lam, lp], weighted[lp], axes=([2, 3], [0, 1]))
+                f += np.tensordot(interaction[lam, lp], weighted[lp], axes=([2, 3], [0, 1]))
             shared[lam] = f
         g = {sub: np.zeros_like(core[sub.l]) for sub in subs}
         energy = sum(occ[sub] * float(np.sum(dens[sub] * (core[sub.l] + 0.5 * shared[sub.l])))
@@ -1305,8 +1305,8 @@ class _Setup:
     overlap: dict[int, FloatArray]
     kinetic: dict[int, FloatArray]
     core: dict[int, FloatArray]
-    coulomb: dict[tuple[int, int], FloatArray]
-    exchange: dict[tuple[int, int], FloatArray]
+    #: ``{(λ, l'): J - K}``, Coulomb minus exchange, contracted with D^{l'} (see :func:`_setup`).
+    interaction: dict[tuple[int, int], FloatArray]
     transform: dict[int, FloatArray]
     dropped: dict[int, int]
     #: ``{l: U_k U_kᵀ}``, the projector on the kept overlap eigenvectors, for the l with
@@ -1317,13 +1317,8 @@ class _Setup:
     start_kept: dict[int, FloatArray]
 
 
-def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int],
-           two_electron: bool = True) -> _Setup:
-    """One-electron matrices, Coulomb and exchange tensors and the orthogonalisation of each l.
-
-    ``two_electron=False`` leaves the (closed-shell) Coulomb and exchange tensors empty,
-    for :func:`solve_expression`, which builds its own per Slater integral.
-    """
+def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[int, int]) -> _Setup:
+    """One-electron matrices, Coulomb-minus-exchange tensors and the orthogonalisation of each l."""
     from zeffir.core.models._hf_integrals import (
         kinetic_matrix,
         nuclear_matrix,
@@ -1340,19 +1335,22 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
     nuclear = {l: nuclear_matrix(l + 1, zetas[l], Z) for l in ls}
     core = {l: kinetic[l] + nuclear[l] for l in ls}
     # Coulomb J[λ, l'][p, q, r, s] = R⁰[pq|rs]; exchange K[λ, l'][p, q, r, s] = Σ_k c R^k[pr|sq]
-    # arranged so that K contracts with D^{l'}_rs like J does.
-    coulomb: dict[tuple[int, int], FloatArray] = {}
-    exchange: dict[tuple[int, int], FloatArray] = {}
-    for lam in ls if two_electron else []:
+    # arranged so that K contracts with D^{l'}_rs like J does. The solvers only need J - K.
+    interaction: dict[tuple[int, int], FloatArray] = {}
+    for lam in ls:
         for lp in ls:
+            if (lp, lam) in interaction:
+                # (J - K)[l', λ] is (J - K)[λ, l'] with the electrons swapped: R^k[pq|rs] =
+                # R^k[rs|pq], and the 3j weights are symmetric.
+                interaction[lam, lp] = interaction[lp, lam].transpose(2, 3, 0, 1)
+                continue
             za, zb = zetas[lam], zetas[lp]
-            coulomb[lam, lp] = rk_tensor(0, lam + 1, za, lam + 1, za, lp + 1, zb, lp + 1, zb)
-            k_sum = np.zeros_like(coulomb[lam, lp])
+            j_minus_k = rk_tensor(0, lam + 1, za, lam + 1, za, lp + 1, zb, lp + 1, zb)
             for k in range(abs(lam - lp), lam + lp + 1, 2):
                 # R^k[p r | s q]: p, r on electron 1 (λ, l'), s, q on electron 2 (l', λ).
                 tensor = rk_tensor(k, lam + 1, za, lp + 1, zb, lp + 1, zb, lam + 1, za)
-                k_sum += 0.5 * _exchange_weight(lam, k, lp) * tensor.transpose(0, 3, 1, 2)
-            exchange[lam, lp] = k_sum
+                j_minus_k -= 0.5 * _exchange_weight(lam, k, lp) * tensor.transpose(0, 3, 1, 2)
+            interaction[lam, lp] = j_minus_k
     transform: dict[int, FloatArray] = {}
     dropped: dict[int, int] = {}
     kept: dict[int, FloatArray] = {}
@@ -1376,7 +1374,7 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
         start_transform[l] = vectors[:, start] / np.sqrt(values[start])
         if np.count_nonzero(~start):
             start_kept[l] = vectors[:, start] @ vectors[:, start].T
-    return _Setup(ls, weight, zetas, overlap, kinetic, core, coulomb, exchange, transform, dropped, kept,
+    return _Setup(ls, weight, zetas, overlap, kinetic, core, interaction, transform, dropped, kept,
                   start_transform, start_kept)
 
 

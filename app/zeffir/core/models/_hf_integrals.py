@@ -244,8 +244,14 @@ def rk_tensor(k: int, n1: int, zetas1: npt.ArrayLike, n2: int, zetas2: npt.Array
     """
     z1, z2, z3, z4 = (np.asarray(z, dtype=float) for z in (zetas1, zetas2, zetas3, zetas4))
     ln1, ln2, ln3, ln4 = log_norms(n1, z1), log_norms(n2, z2), log_norms(n3, z3), log_norms(n4, z4)
-    alpha = (z1[:, None] + z2[None, :])[:, :, None, None]
-    beta = (z3[:, None] + z4[None, :])[None, None, :, :]
+    # The integral depends on (p, q) only through α = ζ_p + ζ_q and on (r, s) through
+    # β = ζ_r + ζ_s: evaluate it once per distinct pair of sums (ζ_p + ζ_q = ζ_q + ζ_p
+    # exactly in floating point, so a symmetric pair is computed once), then spread.
+    alpha, alpha_at = np.unique(z1[:, None] + z2[None, :], return_inverse=True)
+    beta, beta_at = np.unique(z3[:, None] + z4[None, :], return_inverse=True)
+    distinct = rk_product(k, n1 + n2, alpha[:, None], n3 + n4, beta[None, :])
+    values = distinct[alpha_at.reshape(-1)[:, None], beta_at.reshape(-1)[None, :]]
     log_pairs = (ln1[:, None] + ln2[None, :])[:, :, None, None] + (ln3[:, None] + ln4[None, :])[None, None]
     norms = np.exp(log_pairs)
-    return np.asarray(norms * rk_product(k, n1 + n2, alpha, n3 + n4, beta), dtype=float)
+    shape = (z1.size, z2.size, z3.size, z4.size)
+    return np.asarray(norms * values.reshape(shape), dtype=float)
