@@ -71,7 +71,7 @@ HEAVY_CLOSED_SHELLS = {
 
 @pytest.fixture(scope="module")
 def heavy_results():
-    # Xe is the slowest Hartree–Fock run of the suite (about 1.5–3 s); solved once here.
+    # The heavier runs (Xe about 0.4 s) are solved once here.
     return {spec: solve_closed_shell(parse_spec(spec)) for spec in HEAVY_CLOSED_SHELLS}
 
 
@@ -156,7 +156,7 @@ def test_open_shell_orbital_energies(spec, label, energy):
 # al., Int. J. Quantum Chem. 71, 491 (1999)), as quoted to us by the lead, 6 decimals.
 # We get Sc -759.7357180 (+7e-9), Ti -848.4059969 (+6e-8), V -942.8843377 (-7e-7),
 # Mn -1149.8662517 (+3e-7), Fe -1262.4436653 (-3e-7), Co -1381.4145529 (+1e-7),
-# Ni -1506.8709081 (-8e-8); each run takes about 1 s (15–16 iterations).
+# Ni -1506.8709081 (-8e-8), in 15–16 iterations each.
 OPEN_D_SHELL_ENERGIES = {
     "Sc": -759.735718,  # 3d1 4s2 ²D
     "Ti": -848.405997,  # 3d2 4s2 ³F
