@@ -268,8 +268,8 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     Z, and stopping there keeps the d set small enough to be dense. The dense p and d
     sets matter from Kr on: with β = 1.4 for both (d up to 3Z), Kr lies 6e-6 Eh and Xe
     6e-5 Eh above the Hartree–Fock limit, with these sets within 1e-6 Eh; He–Ar land
-    within 1e-6 Eh with the β = 1.4 p set, which keeps them fast (Ne about half the time it takes
-    0.25 s with β = 1.3) (tests/reference/test_hartree_fock_references.py). Sizes:
+    within 1e-6 Eh with the β = 1.4 p set, which keeps them fast (Ne in about half the
+    time it takes with β = 1.3) (tests/reference/test_hartree_fock_references.py). Sizes:
     15–26 s, 16–26 p and 20–22 d functions. The smallest overlap eigenvalue stays above
     1e-10, so canonical orthogonalisation drops nothing. Denser or wider sets are not
     automatically better: d functions up to 3Z with β = 1.3 bring Kr's smallest d
