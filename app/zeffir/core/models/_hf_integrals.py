@@ -153,22 +153,25 @@ def kinetic_matrix(n: int, l: int, zetas: npt.ArrayLike) -> FloatArray:
     return np.asarray(0.5 * out, dtype=float)
 
 
-def _ordered_part(m: int, alpha: FloatArray, n: int, beta: FloatArray) -> tuple[FloatArray, FloatArray]:
+def _ordered_part(m: int | FloatArray, alpha: FloatArray, n: int | FloatArray,
+                  beta: FloatArray) -> tuple[FloatArray, FloatArray]:
     """∫₀^∞ x^m e^{-αx} ∫₀^x y^n e^{-βy} dy dx as (log prefactor, regularised beta factor)."""
     log_full = (special.gammaln(m + 1) + special.gammaln(n + 1)
                 - (m + 1) * np.log(alpha) - (n + 1) * np.log(beta))
     return log_full, special.betainc(n + 1, m + 1, beta / (alpha + beta))
 
 
-def rk_product(k: int, power1: int, alpha: npt.ArrayLike, power2: int, beta: npt.ArrayLike) -> FloatArray:
+def rk_product(k: int, power1: int | npt.ArrayLike, alpha: npt.ArrayLike, power2: int | npt.ArrayLike,
+               beta: npt.ArrayLike) -> FloatArray:
     """∫∫ x^{p1} e^{-αx} (r<^k / r>^{k+1}) y^{p2} e^{-βy} dx dy for broadcasting α, β.
 
     Parameters
     ----------
     k : int
         Multipole order (>= 0).
-    power1, power2 : int
-        Powers of r of the two products of P functions; need power_i >= k + 1.
+    power1, power2 : int or array_like of int
+        Powers of r of the two products of P functions (broadcast with α and β); need
+        power_i >= k + 1.
     alpha, beta : array_like
         Exponent sums of the two products (bohr⁻¹), broadcast against each other.
 
@@ -202,12 +205,14 @@ def rk_product(k: int, power1: int, alpha: npt.ArrayLike, power2: int, beta: npt
     >>> bool(abs(16 * v - 5 / 8) < 1e-15)
     True
     """
-    if k < 0 or power1 < k + 1 or power2 < k + 1:
-        raise QuantumNumberError(f"rk_product needs powers >= k + 1 (k = {k}, {power1}, {power2})")
+    if k < 0 or np.any(np.asarray(power1) < k + 1) or np.any(np.asarray(power2) < k + 1):
+        raise QuantumNumberError(f"rk_product needs powers >= k + 1 (k = {k}, {power1!r}, {power2!r})")
     a = np.asarray(alpha, dtype=float)
     b = np.asarray(beta, dtype=float)
-    log1, beta1 = _ordered_part(power1 - k - 1, a, power2 + k, b)
-    log2, beta2 = _ordered_part(power2 - k - 1, b, power1 + k, a)
+    p1 = power1 if isinstance(power1, int) else np.asarray(power1, dtype=float)
+    p2 = power2 if isinstance(power2, int) else np.asarray(power2, dtype=float)
+    log1, beta1 = _ordered_part(p1 - k - 1, a, p2 + k, b)
+    log2, beta2 = _ordered_part(p2 - k - 1, b, p1 + k, a)
     with np.errstate(under="ignore"):
         return np.asarray(np.exp(log1) * beta1 + np.exp(log2) * beta2, dtype=float)
 
