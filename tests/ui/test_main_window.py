@@ -244,7 +244,7 @@ def test_cancel_stops_a_long_model_build_in_the_worker(qtbot, tmp_path):
 
     def job():
         try:
-            build("Ar", "variational")  # a few seconds when not cancelled
+            build("Xe", "variational")  # about 15 s when not cancelled
         except ModelError as error:
             outcome.append(str(error))
             raise
