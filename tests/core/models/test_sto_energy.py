@@ -9,7 +9,7 @@ from scipy import integrate
 from zeffir.core import parse_spec
 from zeffir.core.energy import configuration_energy, hund_energy_expression
 from zeffir.core.models import _sto_energy
-from zeffir.core.models._sto_energy import StoEnergy, sto_one_electron, sto_rk_tensor
+from zeffir.core.models._sto_energy import StoEnergy, sto_one_electron
 from zeffir.core.models._variational import orthogonalised_radials, orthonormal_coefficients
 from zeffir.core.orbitals import OrbitalSet, SlaterRadial, SubshellOrbital
 
@@ -45,13 +45,19 @@ def test_one_electron_matrices_match_quadrature(l, ns, zetas):
             assert T[p, q] == pytest.approx(t, abs=1e-9)
 
 
-def test_rk_tensor_with_mixed_n_matches_the_same_n_routine():
+def test_rk_matrix_matches_the_same_n_routine():
+    # With every function of one n (here three 2p-type functions), R^k over all of
+    # them is the Hartree–Fock basis tensor of zeffir.core.models._hf_integrals.
+    from zeffir.core.config import Subshell
+    from zeffir.core.energy import EnergyExpression
     from zeffir.core.models._hf_integrals import rk_tensor
 
+    subshells = (Subshell(2, 1), Subshell(3, 1), Subshell(4, 1))
+    energy = StoEnergy(EnergyExpression(parse_spec("C"), {}, {}), subshells)
+    energy.n = np.array([2.0, 2.0, 2.0])
     z = np.array([0.8, 1.9, 4.0])
-    ours = sto_rk_tensor(2, [2, 2, 2], z, [2, 2, 2], z, [3, 3, 3], z, [3, 3, 3], z)
-    reference = rk_tensor(2, 2, z, 2, z, 3, z, 3, z)
-    np.testing.assert_allclose(ours, reference, rtol=1e-13)
+    reference = rk_tensor(2, 2, z, 2, z, 2, z, 2, z).reshape(9, 9)
+    np.testing.assert_allclose(energy._rk(2, z), reference, rtol=1e-13)
 
 
 @pytest.mark.parametrize(("spec", "mixing"), [("C", {(1, 0): 0.0}), ("Fe", {}), ("Na", {(1, 3): 0.05})])

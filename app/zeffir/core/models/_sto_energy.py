@@ -18,7 +18,7 @@ from zeffir.core.config import Subshell
 from zeffir.core.energy import EnergyExpression
 from zeffir.core.orbitals import FloatArray
 
-__all__ = ["StoEnergy", "sto_one_electron", "sto_rk_tensor"]
+__all__ = ["StoEnergy", "sto_one_electron"]
 
 
 def _log_norms(n: npt.ArrayLike, zetas: npt.ArrayLike) -> FloatArray:
@@ -85,51 +85,6 @@ def sto_one_electron(l: int, n: npt.ArrayLike, zetas: npt.ArrayLike, Z: float
     return m0, np.asarray(kinetic, dtype=float), -float(Z) * m1
 
 
-def sto_rk_tensor(k: int, n1: npt.ArrayLike, z1: npt.ArrayLike, n2: npt.ArrayLike, z2: npt.ArrayLike,
-                  n3: npt.ArrayLike, z3: npt.ArrayLike, n4: npt.ArrayLike, z4: npt.ArrayLike) -> FloatArray:
-    """R^k[pq|rs] of normalised Slater-type functions, each with its own n.
-
-    Parameters
-    ----------
-    k : int
-    n1, z1, ..., n4, z4 : array_like
-        Principal quantum numbers and exponents of the functions p, q (electron 1) and
-        r, s (electron 2).
-
-    Returns
-    -------
-    ndarray of shape (len(z1), len(z2), len(z3), len(z4))
-
-    Notes
-    -----
-    :func:`zeffir.core.models._hf_integrals.rk_product` with the powers n_p + n_q and
-    n_r + n_s taken per element (the incomplete beta and log-gamma functions broadcast
-    over them).
-
-    References
-    ----------
-    Slater, *Quantum Theory of Atomic Structure* (1960), vol. I, App. 20.
-
-    Examples
-    --------
-    >>> t = sto_rk_tensor(0, [1], [1.0], [1], [1.0], [1], [1.0], [1], [1.0])
-    >>> bool(abs(t[0, 0, 0, 0] - 5 / 8) < 1e-15)  # F⁰(1s,1s) = 5ζ/8
-    True
-    """
-    from zeffir.core.models._hf_integrals import rk_product
-
-    arrays = [np.asarray(v, dtype=float) for v in (n1, z1, n2, z2, n3, z3, n4, z4)]
-    a1, b1, a2, b2, a3, b3, a4, b4 = arrays
-    power1 = (a1[:, None] + a2[None, :])[:, :, None, None]
-    power2 = (a3[:, None] + a4[None, :])[None, None, :, :]
-    alpha = (b1[:, None] + b2[None, :])[:, :, None, None]
-    beta = (b3[:, None] + b4[None, :])[None, None, :, :]
-    logs = [_log_norms(a, b) for a, b in ((a1, b1), (a2, b2), (a3, b3), (a4, b4))]
-    log_pairs = ((logs[0][:, None] + logs[1][None, :])[:, :, None, None]
-                 + (logs[2][:, None] + logs[3][None, :])[None, None])
-    return np.asarray(np.exp(log_pairs) * rk_product(k, power1, alpha, power2, beta), dtype=float)
-
-
 class StoEnergy:
     """The energy of an expression for orbitals that are combinations of one STO per subshell.
 
@@ -147,7 +102,8 @@ class StoEnergy:
     G^k(a, b) = Σ C_ap C_bq C_br C_as R^k[pq|rs]. One R^k tensor over all the
     functions serves every pair of subshells (elements that no Slater integral uses,
     where a power falls below k + 1, are set to zero), so an evaluation is one
-    :func:`sto_rk_tensor` per k and a few matrix products: F^k = D R^k Dᵀ with
+    R^k evaluation per k (:func:`zeffir.core.models._hf_integrals.rk_product`,
+    with mixed powers) and a few matrix products: F^k = D R^k Dᵀ with
     D_a = C_a ⊗ C_a, and G^k(a, b) the (ab, ba) elements of Y R^k Yᵀ with
     Y_ab = C_a ⊗ C_b.
 
