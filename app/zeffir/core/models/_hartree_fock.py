@@ -1274,12 +1274,7 @@ def _spherical_pair_coefficients(
     itself (1s²: F⁰; p⁶: 15F⁰ - (6/5)F²). Keys as in
     :class:`zeffir.core.energy.EnergyExpression`.
     """
-    from zeffir.core.energy import wigner_3j_squared
-
-    def square(l1: int, k: int, l2: int) -> float:
-        _, value = wigner_3j_squared(l1, k, l2, 0, 0, 0)
-        return value.numerator / value.denominator
-
+    square = _exchange_weight  # (l1 k l2; 0 0 0)²
     out: dict[tuple[str, int, Subshell, Subshell], float] = {}
     subs = sorted(occupancy, key=lambda s: (s.n, s.l))
     for i, a in enumerate(subs):
