@@ -8,7 +8,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable
 from dataclasses import dataclass, field
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, Any
 
 import numpy as np
 import numpy.typing as npt
@@ -285,10 +285,12 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     e^{-qr/n} (q the charge seen far out): its l set starts at
     ζ = min(0.25, :data:`RYDBERG_TAIL` q/n), with β = 1.25. From 0.25 the He 1s1 4s1
     energy is 7.7e-4 Eh too high (virial ratio off by 5e-3); with these sets the He
-    1s1 ns energies (n ≤ 5) change by less than 3e-7 Eh when the tail or β is varied
-    (tests/core/models/test_hartree_fock_excited.py). Beyond n - l ≈ 5 the nodeless
-    Slater-type functions cancel too strongly; such configurations are refused by
-    :data:`MAX_COEFFICIENT_SUM` or :data:`VIRIAL_TOLERANCE`.
+    1s1 ns energies (n ≤ 4) change by less than 3e-7 Eh when the tail or β is varied
+    (tests/core/models/test_hartree_fock_hund.py). From n - l ≈ 5 on the nodeless
+    Slater-type functions cancel too strongly: He 1s1 5s1 and Na [Ne] 6s1 do not
+    converge (the Rydberg orbital trades places with the virtual orbital below it), and
+    higher ones are refused by :data:`MAX_COEFFICIENT_SUM` or :data:`VIRIAL_TOLERANCE`;
+    either way the run ends with a :class:`HartreeFockError` naming the reason.
 
     References
     ----------
@@ -458,17 +460,23 @@ class _Convergence:
     """The stop test of the SCF loops.
 
     Converged when the gradient is below :data:`COMMUTATOR_TOLERANCE` and the energy
-    settled (:data:`ENERGY_TOLERANCE`, or :data:`ENERGY_NOISE` of |E|), or when the run
-    sits at the rounding floor of a heavy atom for :data:`FLOOR_ITERATIONS` iterations
-    (see :data:`FLOOR_RESIDUAL`).
+    settled (:data:`ENERGY_TOLERANCE`, or :data:`ENERGY_NOISE` of |E|); or when the
+    gradient is below that tolerance in two consecutive iterations, the energy then
+    being stationary to second order and its scatter rounding (a Rydberg orbital built
+    from strongly cancelling coefficients, He 1s1 4s1, scatters by ±1.5e-9 Eh at a
+    gradient of 1e-10); or when the run sits at the rounding floor of a heavy atom for
+    :data:`FLOOR_ITERATIONS` iterations (see :data:`FLOOR_RESIDUAL`).
     """
 
     def __init__(self) -> None:
         self.at_floor = 0
+        self.last_residual = math.inf
 
     def done(self, residual: float, change: float, energy: float) -> bool:
         settled = abs(change) < max(ENERGY_TOLERANCE, ENERGY_NOISE * abs(energy))
-        if residual < COMMUTATOR_TOLERANCE and settled:
+        twice = self.last_residual < COMMUTATOR_TOLERANCE
+        self.last_residual = residual
+        if residual < COMMUTATOR_TOLERANCE and (settled or twice):
             return True
         if residual < FLOOR_RESIDUAL and abs(change) < FLOOR_ENERGY_NOISE * abs(energy):
             self.at_floor += 1
@@ -582,7 +590,6 @@ def solve_closed_shell(
     dropped = setup.dropped
     # Start in the reduced basis; swapped (in place, for the closures) for the full one.
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
-    starting = bool(setup.start_kept)
 
     def diagonalise(fock: dict[int, FloatArray]) -> tuple[dict[int, FloatArray], dict[int, FloatArray]]:
         coefficients, energies = {}, {}
@@ -606,42 +613,22 @@ def solve_closed_shell(
     def energy_of(density: dict[int, FloatArray], fock: dict[int, FloatArray]) -> float:
         return float(sum(0.5 * weight[l] * np.sum(density[l] * (core[l] + fock[l])) for l in ls))
 
-    coefficients, energies = diagonalise(core)
-    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
-    energy_before = math.inf
-    state: SCFState | None = None
-    convergence = _Convergence()
-    for iteration in range(1, max_iterations + 1):
-        _stop_if_asked(configuration, should_stop, state)
+    def evaluate(coefficients: dict[int, FloatArray]) -> tuple[float, FloatArray, _Iterate]:
         density = {l: coefficients[l] @ coefficients[l].T for l in ls}
         fock = fock_of(density)
-        energy = energy_of(density, fock)
-        gradients = []
-        for l in ls:
-            # In the normalised basis itself: the orthonormalised one would amplify rounding
-            # by 1/s_min (up to ~1e8 for dense even-tempered sets) and stall the test.
-            g = fock[l] @ density[l] @ overlap[l]
-            gradients.append(_gradient(g, kept.get(l)).ravel())
-        error = np.concatenate(gradients)
-        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
-                                  "E")
-        residual, change = state.residual, energy - energy_before
-        if starting and residual < START_RESIDUAL:
-            _switch_to_full_basis(setup, transform, kept, history)
-            starting = False
-            energy_before = energy
-            coefficients, energies = diagonalise(fock)
-            continue
-        if convergence.done(residual, change, energy):
-            # Orbitals and energies of the converged Fock matrix itself (not an extrapolation).
-            coefficients, energies = diagonalise(fock)
-            break
-        energy_before = energy
-        history.append((fock, error))
-        del history[:-DIIS_SIZE]
-        coefficients, energies = diagonalise(_diis(history, ls))
-    else:
-        raise _no_convergence(configuration, max_iterations, state)
+        # The gradient in the normalised basis itself: the orthonormalised one would amplify
+        # rounding by 1/s_min (up to ~1e8 for dense even-tempered sets) and stall the test.
+        error = np.concatenate([_gradient(fock[l] @ density[l] @ overlap[l], kept.get(l)).ravel()
+                                for l in ls])
+        return energy_of(density, fock), error, (density, fock)
+
+    coefficients, payload, state = _run_scf(
+        configuration, setup, transform, kept, diagonalise(core)[0], evaluate,
+        lambda _c, last: last[1], lambda matrices: diagonalise(matrices)[0],
+        progress, should_stop, max_iterations, "E")
+    density, fock = payload
+    # Orbitals and energies of the converged Fock matrix itself (not an extrapolation).
+    coefficients, energies = diagonalise(fock)
     kinetic_energy = float(sum(weight[l] * np.sum(density[l] * kinetic[l]) for l in ls))
     _check_trustworthy(configuration, coefficients, density, core, weight, state)
     _check_virial(configuration, kinetic_energy, state.energy, state)
@@ -778,7 +765,6 @@ def solve_open_shell(
     overlap, kinetic, core = setup.overlap, setup.kinetic, setup.core
     interaction = setup.interaction
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
-    starting = bool(setup.start_kept)
     lo = open_sub.l
     closed = {l: layout[l] - (1 if l == lo else 0) for l in ls}
     w_c = weight[lo]
@@ -858,13 +844,7 @@ def solve_open_shell(
             out_c[l], out_e[l] = c, eps
         return out_c, out_e
 
-    coefficients, energies = diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls})
-    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
-    energy_before = math.inf
-    state: SCFState | None = None
-    convergence = _Convergence()
-    for iteration in range(1, max_iterations + 1):
-        _stop_if_asked(configuration, should_stop, state)
+    def evaluate(coefficients: dict[int, FloatArray]) -> tuple[float, FloatArray, _Iterate]:
         d_c, d_o = split(coefficients)
         f_c, f_o, energy = fock_of(d_c, d_o)
         gradients = []
@@ -873,27 +853,19 @@ def solve_open_shell(
             if l == lo:
                 g = g + (w_o / w_c) * (f_o @ d_o @ overlap[l])
             gradients.append(_gradient(g, kept.get(l)).ravel())
-        error = np.concatenate(gradients)
-        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
-                                  "E")
-        residual, change = state.residual, energy - energy_before
-        if starting and residual < START_RESIDUAL:
-            _switch_to_full_basis(setup, transform, kept, history)
-            starting = False
-        elif convergence.done(residual, change, energy):
-            # Keep the orbitals whose energy this is: only the closed ones of each l are made
-            # canonical (a rotation among them changes nothing). A final diagonalisation of R
-            # would rotate closed into open orbitals by ~residual/Δε, which moves the
-            # one-electron energies of core orbitals at first order (~1e-8 Eh in Na).
-            coefficients, energies = canonical(coefficients, f_c, f_o)
-            break
-        energy_before = energy
-        matrices = effective(coefficients, f_c, f_o)
-        history.append((matrices, error))
-        del history[:-DIIS_SIZE]
-        coefficients, energies = diagonalise(_diis(history, ls))
-    else:
-        raise _no_convergence(configuration, max_iterations, state)
+        return energy, np.concatenate(gradients), (d_c, d_o, f_c, f_o)
+
+    start = diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls})[0]
+    coefficients, payload, state = _run_scf(
+        configuration, setup, transform, kept, start, evaluate,
+        lambda c, last: effective(c, last[2], last[3]), lambda matrices: diagonalise(matrices)[0],
+        progress, should_stop, max_iterations, "E")
+    d_c, d_o, f_c, f_o = payload
+    # Keep the orbitals whose energy this is: only the closed ones of each l are made
+    # canonical (a rotation among them changes nothing). A final diagonalisation of R
+    # would rotate closed into open orbitals by ~residual/Δε, which moves the
+    # one-electron energies of core orbitals at first order (~1e-8 Eh in Na).
+    coefficients, energies = canonical(coefficients, f_c, f_o)
     kinetic_energy = float(sum(weight[l] * np.sum(d_c[l] * kinetic[l]) for l in ls)
                            + w_o * np.sum(d_o * kinetic[lo]))
     _check_coefficients(configuration, coefficients, state)
@@ -1144,7 +1116,6 @@ def solve_expression(
     ls, zetas, overlap, core = setup.ls, setup.zetas, setup.overlap, setup.core
     interaction = setup.interaction
     transform, kept = dict(setup.start_transform), dict(setup.start_kept)
-    starting = bool(setup.start_kept)
     full = {sub: occ[sub] == 2 * (2 * sub.l + 1) for sub in subs}
     # The part every pair shares with closed shells goes through the closed-shell
     # Coulomb and exchange tensors at once; only the remainder (pairs of open subshells)
@@ -1223,13 +1194,7 @@ def solve_expression(
     def diagonalise(matrices: dict[int, FloatArray]) -> dict[int, FloatArray]:
         return {l: transform[l] @ np.linalg.eigh(matrices[l])[1][:, : layout[l]] for l in ls}
 
-    coefficients = diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls})
-    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
-    energy_before = math.inf
-    state: SCFState | None = None
-    convergence = _Convergence()
-    for iteration in range(1, max_iterations + 1):
-        _stop_if_asked(configuration, should_stop, state)
+    def evaluate(coefficients: dict[int, FloatArray]) -> tuple[float, FloatArray, _Iterate]:
         fock, energy = fock_of(coefficients)
         dens = densities(coefficients)
         gradients = []
@@ -1237,21 +1202,14 @@ def solve_expression(
             g = sum((occ[sub] * fock[sub] @ dens[sub] for sub in subs if sub.l == l),
                     np.zeros_like(core[l])) @ overlap[l] / (2 * (2 * l + 1))
             gradients.append(_gradient(g, kept.get(l)).ravel())
-        error = np.concatenate(gradients)
-        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress,
-                                  symbol)
-        residual, change = state.residual, energy - energy_before
-        if starting and residual < START_RESIDUAL:
-            _switch_to_full_basis(setup, transform, kept, history)
-            starting = False
-        elif convergence.done(residual, change, energy):
-            break
-        energy_before = energy
-        history.append((effective(coefficients, fock), error))
-        del history[:-DIIS_SIZE]
-        coefficients = diagonalise(_diis(history, ls))
-    else:
-        raise _no_convergence(configuration, max_iterations, state)
+        return energy, np.concatenate(gradients), (fock,)
+
+    coefficients, payload, state = _run_scf(
+        configuration, setup, transform, kept,
+        diagonalise({l: transform[l].T @ core[l] @ transform[l] for l in ls}), evaluate,
+        lambda c, last: effective(c, last[0]), diagonalise,
+        progress, should_stop, max_iterations, symbol)
+    (fock,) = payload
     dens = densities(coefficients)
     kinetic_energy = sum(occ[sub] * float(np.sum(dens[sub] * setup.kinetic[sub.l])) for sub in subs)
     _check_coefficients(configuration, coefficients, state)
@@ -1371,6 +1329,81 @@ def _setup(configuration: Configuration, basis: EvenTemperedBasis, layout: dict[
             start_kept[l] = vectors[:, start] @ vectors[:, start].T
     return _Setup(ls, weight, zetas, overlap, kinetic, core, interaction, transform, dropped, kept,
                   start_transform, start_kept)
+
+
+#: What one solver's iteration hands back to itself (densities, Fock matrices, ...).
+_Iterate = tuple[Any, ...]
+
+
+def _run_scf(
+    configuration: Configuration,
+    setup: _Setup,
+    transform: dict[int, FloatArray],
+    kept: dict[int, FloatArray],
+    coefficients: dict[int, FloatArray],
+    evaluate: Callable[[dict[int, FloatArray]], tuple[float, FloatArray, _Iterate]],
+    matrices_of: Callable[[dict[int, FloatArray], _Iterate], dict[int, FloatArray]],
+    diagonalise: Callable[[dict[int, FloatArray]], dict[int, FloatArray]],
+    progress: Callable[[SCFState], None] | None,
+    should_stop: Callable[[], bool] | None,
+    max_iterations: int,
+    symbol: str,
+) -> tuple[dict[int, FloatArray], _Iterate, SCFState]:
+    """The self-consistent-field iteration every solver shares.
+
+    Parameters
+    ----------
+    configuration, setup
+        What is solved, and its basis-set matrices.
+    transform, kept : dict
+        The orthogonalisation in use and the projectors on the kept span; the closures
+        of ``matrices_of`` and ``diagonalise`` read them, and the switch from the
+        reduced starting basis to the full one replaces them in place.
+    coefficients : dict
+        The starting orbitals.
+    evaluate : callable
+        Orbitals → (energy, orbital gradient, what the solver needs of this iteration).
+    matrices_of : callable
+        (orbitals, that iteration's data) → the matrices DIIS extrapolates and
+        ``diagonalise`` turns into the next orbitals (the Fock matrices, or Roothaan's
+        coupling operators).
+    progress, should_stop, max_iterations, symbol
+        As for the solvers; ``symbol`` names the energy in progress messages.
+
+    Returns
+    -------
+    coefficients, data, state
+        The orbitals of the last iteration, what ``evaluate`` returned for them, and
+        the final :class:`SCFState`.
+
+    Notes
+    -----
+    While the reduced starting basis is in use (:data:`START_LINEAR_DEPENDENCE`), the
+    first iteration whose gradient is below :data:`START_RESIDUAL` switches to the full
+    basis and starts a fresh DIIS history with that iteration's matrices. (This also
+    restarts DIIS where both bases drop the same near-null combinations, which keeps
+    the Rydberg configurations He 1s1 5s1 and Na [Ne] 6s1 converging.) Convergence
+    is :class:`_Convergence`; running out of iterations raises with the last residual.
+    """
+    starting = bool(setup.start_kept)
+    history: list[tuple[dict[int, FloatArray], FloatArray]] = []
+    energy_before = math.inf
+    state: SCFState | None = None
+    convergence = _Convergence()
+    for iteration in range(1, max_iterations + 1):
+        _stop_if_asked(configuration, should_stop, state)
+        energy, error, data = evaluate(coefficients)
+        state = _record_iteration(configuration, iteration, energy, energy_before, error, progress, symbol)
+        change, energy_before = energy - energy_before, energy
+        if starting and state.residual < START_RESIDUAL:
+            _switch_to_full_basis(setup, transform, kept, history)
+            starting = False
+        elif convergence.done(state.residual, change, energy):
+            return coefficients, data, state
+        history.append((matrices_of(coefficients, data), error))
+        del history[:-DIIS_SIZE]
+        coefficients = diagonalise(_diis(history, setup.ls))
+    raise _no_convergence(configuration, max_iterations, state)
 
 
 def _switch_to_full_basis(setup: _Setup, transform: dict[int, FloatArray], kept: dict[int, FloatArray],
