@@ -153,23 +153,9 @@ def atomic_file(path: str | os.PathLike[str]) -> Iterator[BinaryIO]:
     ExportError
         As for :func:`atomic_path`.
     """
-    target = Path(path)
-    _check_target(target)
-    temporary, fd = _open_temporary(target)
-    try:
-        with os.fdopen(fd, "wb") as stream:
-            yield stream
-            stream.flush()
-            os.fsync(stream.fileno())
-        _commit(temporary, target)
-    except OSError as error:
-        _discard(temporary)
-        if isinstance(error, ExportError):
-            raise
-        raise cannot_write(target, error) from error
-    except BaseException:
-        _discard(temporary)
-        raise
+    # The stream is closed before atomic_path syncs and commits the temporary file.
+    with atomic_path(path) as temporary, open(temporary, "wb") as stream:
+        yield stream
 
 
 def write_atomic(path: str | os.PathLike[str], data: bytes | str) -> Path:
