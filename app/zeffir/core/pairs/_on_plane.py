@@ -23,6 +23,8 @@ import numpy.typing as npt
 
 from zeffir.core._errors import QuantumNumberError
 from zeffir.core.density import Plane, plane_polynomial
+from zeffir.core.density._slices import _mirror_blocks
+from zeffir.core.density._slices import _quadrant_radii as _radii_of_quadrant
 from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction
 from zeffir.core.pairs._determinant import UP, Determinant
 from zeffir.core.pairs._kernels import compiled_modulus_squared
@@ -58,22 +60,9 @@ _Grid = npt.NDArray[Any]
 @lru_cache(maxsize=8)
 def _quadrant_radii(plane: Plane) -> FloatArray:
     """|r| on the non-negative quadrant of the grid (cached per plane, read-only)."""
-    c = plane.coordinates()[plane.resolution // 2 :]
-    sq = c * c
-    radii = np.sqrt(plane.offset**2 + sq[:, None] + sq[None, :])
+    radii = _radii_of_quadrant(plane)
     radii.flags.writeable = False
     return radii
-
-
-def _mirror_blocks(k: int, quadrant: FloatArray) -> list[tuple[tuple[slice, slice], FloatArray]]:
-    h = k // 2
-    flipped_rows = quadrant[::-1][:h]
-    return [
-        ((slice(h, k), slice(h, k)), quadrant),
-        ((slice(h, k), slice(0, h)), quadrant[:, ::-1][:, :h]),
-        ((slice(0, h), slice(h, k)), flipped_rows),
-        ((slice(0, h), slice(0, h)), flipped_rows[:, ::-1][:, :h]),
-    ]
 
 
 def _mirror(plane: Plane, quadrant: FloatArray) -> FloatArray:
