@@ -170,6 +170,7 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
         "charge": configuration.charge,
         "model": model,
         "configuration": configuration.text,
+        "configuration_origin": configuration.origin,
         "total_energy_hartree": _finite_or_none(orbitals.total_energy),
         "subshells": [
             {
@@ -187,7 +188,7 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
             }
             for row in rows
         ],
-        "notes": list(orbitals.notes),
+        "notes": [*orbitals.notes, configuration.origin_note],
         "virial_ratio": _finite_or_none(orbitals.virial_ratio),
         **_correlation_fields(configuration, model, orbitals.total_energy),
     }
@@ -227,6 +228,7 @@ def _format_table(spec: str, model: str, units: str) -> str:
     charge = f", charge {configuration.charge:+d}" if configuration.charge else ""
     lines = [
         f"{configuration.element.name} (Z = {configuration.Z}{charge}): {configuration.text}",
+        f"configuration: {configuration.short_text} ({configuration.origin})",
         f"model: {model} — {get_model(model).title}",
         "",
         f"{'subshell':>8} {'occ':>4} {'ζ/' + lu + '⁻¹':>11} {'Z_eff':>8} {'n*':>5} "
@@ -254,7 +256,8 @@ def _format_table(spec: str, model: str, units: str) -> str:
         lines.append("correlation energy: no published exact energy for this configuration")
     elif model == "hartree-fock-average":
         lines.append("correlation energy: not given for the average of a configuration (not one state)")
-    notes = [*orbitals.notes, *(note for row in rows for note in row.notes)]
+    notes = [configuration.origin_note, *orbitals.notes,
+             *(note for row in rows for note in row.notes)]
     lines.extend(f"note: {note}" for note in dict.fromkeys(notes))
     return "\n".join(lines)
 
@@ -271,12 +274,12 @@ def terms_json(spec: str) -> dict[str, Any]:
         configuration_terms,
         ground_level,
         ground_notes,
-        known_hund_miss,
         microstate_count,
+        observed_level,
     )
 
     configuration = parse_spec(spec)
-    observed = known_hund_miss(configuration)
+    observed = observed_level(configuration)
     return {
         "spec": configuration.spec,
         "configuration": configuration.text,
@@ -288,7 +291,12 @@ def terms_json(spec: str) -> dict[str, Any]:
             for term in configuration_terms(configuration)
         ],
         "ground": _level_json(ground_level(configuration)),
-        "observed_ground": None if observed is None else _level_json(observed),
+        "observed_ground": (None if observed is None or observed.level is None
+                            else _level_json(observed.level)),
+        "observed_ground_level": None if observed is None else {
+            "designation": observed.text, "J": observed.J, "parity": observed.parity,
+            "source": observed.source},
+        "configuration_origin": configuration.origin,
         "notes": list(ground_notes(configuration)),
     }
 
@@ -315,6 +323,7 @@ def _format_terms(spec: str) -> str:
         ground_level,
         ground_notes,
         microstate_count,
+        observed_level,
     )
 
     configuration = parse_spec(spec)
@@ -350,6 +359,10 @@ def _format_terms(spec: str) -> str:
     ground = ground_level(configuration)
     lines.append(f"ground level by Hund's rules: {ground.display}  "
                  f"(S = {_half(ground.S)}, L = {ground.L}, J = {_half(ground.J)})")
+    observed = observed_level(configuration)
+    if observed is not None:
+        lines.append(f"observed ground level: {observed.text}  ({observed.source})")
+    lines.append(f"note: {configuration.origin_note}")
     lines.extend(f"note: {note}" for note in ground_notes(configuration))
     return "\n".join(lines)
 

@@ -1,4 +1,4 @@
-"""Regenerate elements.csv and clementi_exponents.csv from the `mendeleev` package.
+"""Regenerate elements.csv, clementi_exponents.csv and ion_ground_states.csv from `mendeleev`.
 
 Offline build helper, NOT part of the Zeffir application (never import it).
 mendeleev is not a runtime dependency; install it in a scratch venv only:
@@ -6,7 +6,7 @@ mendeleev is not a runtime dependency; install it in a scratch venv only:
     python3 -m venv /tmp/mendvenv && /tmp/mendvenv/bin/pip install mendeleev
     /tmp/mendvenv/bin/python resources/data/generate_tables.py
 
-Both CSV files next to this script are rewritten deterministically (no dates).
+The CSV files next to this script are rewritten deterministically (no dates).
 Cross-checks (Madelung anomalies, electron counts, Clementi spot values) are
 printed to stdout; any failed check aborts with an exception before writing.
 """
@@ -185,13 +185,139 @@ def build_clementi(version: str, symbols: dict[int, str]) -> list[list[object]]:
     return rows
 
 
+# Cores NIST writes in its ground-shell lists, beyond the noble gases.
+NIST_EXTRA_CORES = {"Cd": "[Kr].4d10.5s2", "Hg": "[Xe].4f14.5d10.6s2"}
+#: Charges of the ion table (NIST ASD spectra II to V).
+ION_CHARGES = range(1, 5)
+#: Heaviest element of the ion table: beyond lawrencium NIST's ground states are calculated.
+ION_MAX_Z = 103
+LEVEL_LS = re.compile(r"^(\d+)([A-Z])(\*?)(?:<([\d/.]+)>|(\d+(?:/2)?))$")
+LEVEL_JJ = re.compile(r"^\(([\d/]+),([\d/]+)\)(\*?)<([\d/]+)>$")
+LEVEL_J = re.compile(r"^<([\d/]+)>$|^(\d+(?:/2)?)$")
+LS_LETTERS = "SPDFGHIKLMNOQRTUV"
+
+
+def _j_text(text: str) -> str:
+    """'2.000' -> '2', '7/2' -> '7/2', '4' -> '4'."""
+    if "/" in text:
+        return text
+    value = float(text)
+    assert value == int(value), text
+    return str(int(value))
+
+
+def parse_level(raw: str, odd: bool) -> tuple[str, str, str, str]:
+    """NIST level designation -> (level text, multiplicity, L, J); '' where not given.
+
+    ``5D<4>`` and ``7F0`` are LS levels; ``(9/2,1/2)*<4>`` is a J1 j level; ``<3/2>`` and
+    ``0`` give J only. The star (odd parity) is written as ``°``, and is checked against
+    the parity of the configuration.
+    """
+    text = re.sub(r"\s+", "", raw)
+    if m := LEVEL_LS.match(text):
+        mult, letter, star, j1, j2 = m.groups()
+        assert bool(star) == odd, f"parity of {raw!r} disagrees with the configuration"
+        j = _j_text(j1 or j2)
+        return f"{mult}{letter}{'°' if odd else ''}{j}", mult, str(LS_LETTERS.index(letter)), j
+    if m := LEVEL_JJ.match(text):
+        a, b, star, j = m.groups()
+        assert bool(star) == odd, f"parity of {raw!r} disagrees with the configuration"
+        return f"({a},{b}){'°' if odd else ''}{j}", "", "", j
+    if m := LEVEL_J.match(text):
+        j = _j_text(m.group(1) or m.group(2))
+        return f"J = {j}", "", "", j
+    raise ValueError(f"unreadable level {raw!r}")
+
+
+def expand_nist_shells(text: str, cores: dict[str, list[Subshell]]) -> list[Subshell]:
+    """'[Cd].5p6' -> (n, l, occ) list, cores expanded; dots separate, occupancy 1 omitted."""
+    for name, shells in NIST_EXTRA_CORES.items():
+        text = text.replace(f"[{name}]", shells)
+    occ: dict[tuple[int, int], int] = {}
+    for tok in text.split("."):
+        if tok.startswith("["):
+            for n, l, k in cores[tok.strip("[]")]:
+                occ[(n, l)] = k
+            continue
+        m = TOKEN.match(tok)
+        if not m:
+            raise ValueError(f"bad token {tok!r} in {text!r}")
+        occ[(int(m[1]), L_LETTERS.index(m[2]))] = int(m[3] or 1)
+    return [(n, l, k) for (n, l), k in sorted(occ.items())]
+
+
+def with_largest_core(subs: list[Subshell], cores: dict[str, list[Subshell]]) -> str:
+    """Write with the largest noble-gas core whose subshells are all full here."""
+    have = as_dict(subs)
+    for zc in sorted(NOBLE_GASES, reverse=True):
+        core = cores[NOBLE_GASES[zc]]
+        if all(have.get((n, l)) == k for n, l, k in core):
+            inside = {(n, l) for n, l, _ in core}
+            rest = fmt([s for s in subs if (s[0], s[1]) not in inside])
+            return f"[{NOBLE_GASES[zc]}] {rest}".rstrip()
+    return fmt(subs)
+
+
+def build_ions(version: str, symbols: dict[int, str],
+               cores: dict[str, list[Subshell]]) -> list[list[object]]:
+    df = fetch_table("ionizationenergies")
+    df = df[df.ion_charge.isin(list(ION_CHARGES)) & (df.atomic_number <= ION_MAX_Z)]
+    df = df.sort_values(["atomic_number", "ion_charge"])
+    rows: list[list[object]] = []
+    for z, q, name, shells, level in df[["atomic_number", "ion_charge", "species_name",
+                                         "ground_shells", "ground_level"]].itertuples(index=False):
+        z, q = int(z), int(q)
+        if not isinstance(shells, str) or not isinstance(level, str) or level.strip() in ("", "*"):
+            print(f"NOTE {name}: no ground level listed; left to the removal rule")
+            continue
+        subs = expand_nist_shells(shells.strip(), cores)
+        assert sum(k for *_, k in subs) == z - q, f"{name}: electron count != Z - charge"
+        assert all(0 < k <= 2 * (2 * l + 1) for _, l, k in subs), f"{name}: bad occupancy"
+        assert name.split()[0] == symbols[z], f"{name}: symbol disagrees with Z = {z}"
+        odd = sum(l * k for _, l, k in subs) % 2 == 1
+        text, mult, big_l, j = parse_level(level, odd)
+        rows.append([z, symbols[z], q, with_largest_core(subs, cores), text, mult, big_l, j,
+                     "odd" if odd else "even"])
+    print(f"ion table: {len(rows)} ions, charges {ION_CHARGES.start}..{ION_CHARGES.stop - 1}, "
+          f"Z <= {ION_MAX_Z}")
+    lookup = {(r[1], r[2]): (r[3], r[4]) for r in rows}
+    for key, ref in [(("Eu", 3), ("[Xe] 4f6", "7F0")), (("Gd", 3), ("[Xe] 4f7", "8S°7/2")),
+                     (("U", 4), ("[Rn] 5f2", "3H4")), (("Fe", 2), ("[Ar] 3d6", "5D4"))]:
+        print(f"check {key[0]}{key[1]}+: {lookup[key]} (expected {ref})")
+        assert lookup[key] == ref
+    write_csv(HERE / "ion_ground_states.csv", [
+        "Observed ground configurations and ground levels of the ions of charge +1 to +4",
+        f"(NIST ASD spectra II to V), Z = 1..{ION_MAX_Z}.",
+        "Source: NIST Atomic Spectra Database, 'Ground States and Ionization Energies'",
+        "(A. Kramida, Yu. Ralchenko, J. Reader and NIST ASD Team, NIST Atomic Spectra Database,",
+        "ground shells and ground levels of each spectrum).",
+        f"Digitised copy taken from the mendeleev Python package, version {version}",
+        "(its 'ionizationenergies' table: ground_shells, ground_level).",
+        "Generated by generate_tables.py; do not edit by hand.",
+        "configuration: largest full noble-gas core in brackets, then subshells by (n, l).",
+        "level: NIST's designation with the odd-parity star written as °; (J1,j)J for levels",
+        "NIST names in J1 j coupling; 'J = x' where NIST gives J alone.",
+        "multiplicity (2S+1), L and J: the LS level's quantum numbers (empty when NIST gives no",
+        "LS name); parity: of the configuration (sum of l), checked against NIST's star.",
+        "For the heaviest actinide ions NIST's ground states rest on calculations.",
+    ], ["Z", "symbol", "charge", "configuration", "level", "multiplicity", "L", "J", "parity"],
+        rows)
+    return rows
+
+
 def main() -> None:
     version = importlib.metadata.version("mendeleev")
     print(f"mendeleev {version}")
     elements, symbols = build_elements(version)
     clementi = build_clementi(version, symbols)
+    cores: dict[str, list[Subshell]] = {}
+    for z, sym, _, conf in elements:
+        if z in NOBLE_GASES:
+            cores[str(sym)] = parse(str(conf), cores)
+    ions = build_ions(version, symbols, cores)
     print(f"wrote elements.csv ({len(elements)} rows), "
-          f"clementi_exponents.csv ({len(clementi)} rows)")
+          f"clementi_exponents.csv ({len(clementi)} rows), "
+          f"ion_ground_states.csv ({len(ions)} rows)")
 
 
 if __name__ == "__main__":

@@ -97,10 +97,13 @@ def _energy_summary(source: Source, orbitals: Any) -> str:
     """One line under the table: total energy, and E_corr for Hartree–Fock where published."""
     from zeffir.core.energy import exact_energy
 
+    configuration = orbitals.configuration
+    where = ("" if configuration.origin == "typed"
+             else f" = {configuration.short_text} ({configuration.origin})")
     total = orbitals.total_energy
     if total is None:
-        return f"{orbitals.configuration.spec}: the {source.model} model defines no total energy"
-    text = f"{orbitals.configuration.spec} ({source.model}): total energy {total:.6f} Eh"
+        return f"{configuration.spec}{where}: the {source.model} model defines no total energy"
+    text = f"{configuration.spec}{where} ({source.model}): total energy {total:.6f} Eh"
     if orbitals.virial_ratio is not None:
         text += f" (−V/T = {orbitals.virial_ratio:.8f})"
     if source.model == "hartree-fock":

@@ -9,14 +9,27 @@ from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from typing import Final
+from typing import Final, Literal
 
 from zeffir.core._errors import SpecError
 from zeffir.core.config._elements import Element, element
+from zeffir.core.config._ions import ION_SOURCE, observed_ion
 from zeffir.core.config._subshell import Subshell, madelung_order
 from zeffir.core.config._tokens import NOBLE_GAS_CORES, parse_subshell_token
 
-__all__ = ["Configuration", "format_configuration", "parse_spec"]
+__all__ = [
+    "Configuration",
+    "Origin",
+    "derived_ion_ground",
+    "format_configuration",
+    "format_with_core",
+    "parse_spec",
+    "removal_order",
+]
+
+#: Where a configuration comes from: typed by the user, the observed ground state
+#: (NIST ASD: every neutral atom, the ions of the shipped table) or derived by rule.
+Origin = Literal["typed", "observed", "derived"]
 
 _ELEMENT: Final = re.compile(r"^([A-Za-z]{1,3}|\d{1,3})(?:(\d*)([+-])|([+-])(\d+))?$")
 _CHARGE: Final = re.compile(r"^(?:(\d*)([+-])|([+-])(\d+))$")
@@ -41,6 +54,10 @@ class Configuration:
         The normalised specification text, e.g. ``'Fe3+'`` or ``'C 1s2 2s1 2p3'``.
     explicit : bool
         True when the configuration was typed rather than taken as the ground state.
+    origin : {'typed', 'observed', 'derived'}
+        Typed by the user; the observed ground configuration (NIST ASD: every neutral
+        atom, and the ions of charge +1 to +4 the shipped table lists); or derived from
+        the neutral atom's by the rules of ``derived_ion_ground``.
     """
 
     element: Element
@@ -48,6 +65,7 @@ class Configuration:
     occupations: tuple[tuple[Subshell, int], ...]
     spec: str
     explicit: bool
+    origin: Origin = "typed"
 
     @property
     def Z(self) -> int:
@@ -65,6 +83,11 @@ class Configuration:
         return format_configuration(self.occupations)
 
     @property
+    def short_text(self) -> str:
+        """Configuration with its largest full noble-gas core in brackets, e.g. ``'[Xe] 4f6'``."""
+        return format_with_core(self.occupations)
+
+    @property
     def open_subshells(self) -> tuple[Subshell, ...]:
         """Subshells that are partly filled."""
         return tuple(sub for sub, occ in self.occupations if occ < sub.capacity)
@@ -72,6 +95,24 @@ class Configuration:
     def occupancy(self, subshell: Subshell) -> int:
         """Electrons in ``subshell`` (0 if it is empty)."""
         return dict(self.occupations).get(subshell, 0)
+
+    @property
+    def origin_note(self) -> str:
+        """One line saying where the configuration comes from, for tables and exports."""
+        ion = self.spec.split()[0]
+        if self.origin == "typed":
+            return f"configuration as typed ({ion})"
+        if self.origin == "observed" and self.charge == 0:
+            return f"observed ground configuration of {ion} (NIST Atomic Spectra Database)"
+        if self.origin == "observed":
+            rule = derived_ion_ground(self.element, self.charge)
+            differs = "" if rule == self.occupations else (
+                f"; the removal rule would give {format_with_core(rule)}")
+            return f"observed ground configuration of {ion} ({ION_SOURCE}){differs}"
+        how = ("electrons removed from the outermost s and p, then (n−1)d, then (n−2)f"
+               if self.charge > 0 else "electrons added in Madelung order")
+        return (f"ground configuration of {ion} derived from the neutral atom's ({how}); "
+                "no observed ground state is shipped for this ion")
 
 
 def format_configuration(occupations: tuple[tuple[Subshell, int], ...]) -> str:
@@ -85,22 +126,135 @@ def format_configuration(occupations: tuple[tuple[Subshell, int], ...]) -> str:
     return " ".join(f"{sub.label}{occ}" for sub, occ in occupations)
 
 
+def format_with_core(occupations: tuple[tuple[Subshell, int], ...]) -> str:
+    """Write occupations with the largest full noble-gas core in brackets.
+
+    Examples
+    --------
+    >>> format_with_core(element("Fe").ground)
+    '[Ar] 3d6 4s2'
+    >>> format_with_core(element("Ar").ground)
+    '[Ar]'
+    """
+    occupation = dict(occupations)
+    for name, _ in sorted(NOBLE_GAS_CORES.items(), key=lambda item: -item[1]):
+        core = element(name).ground
+        if all(occupation.get(sub) == occ for sub, occ in core):
+            inside = {sub for sub, _ in core}
+            rest = format_configuration(tuple(item for item in occupations if item[0] not in inside))
+            return f"[{name}] {rest}".rstrip()
+    return format_configuration(occupations)
+
+
 def _charge_value(sign: str, digits: str) -> int:
     size = int(digits) if digits else 1
     return size if sign == "+" else -size
 
 
-def _ion_ground(atom: Element, charge: int) -> tuple[tuple[Subshell, int], ...]:
-    """Ground configuration of an ion from the neutral atom's observed one.
+def _valence_rank(subshell: Subshell) -> tuple[int, int]:
+    """Removal priority: outermost s and p first, then (n-1)d, then (n-2)f (then g...)."""
+    shell = subshell.n + max(subshell.l - 1, 0)
+    within = {0: 2, 1: 3}.get(subshell.l, 2 - subshell.l)
+    return shell, within
 
-    Cations lose electrons from the highest n first, then the highest l (so Fe3+
-    is [Ar] 3d5); anions gain them in Madelung order. Both are rules of thumb
-    (common practice): a few ions have other observed ground configurations.
+
+def _core_of(occupation: dict[Subshell, int]) -> set[Subshell]:
+    """Subshells of the largest noble-gas core that is full and smaller than the ion."""
+    electrons = sum(occupation.values())
+    for name, z_core in sorted(NOBLE_GAS_CORES.items(), key=lambda item: -item[1]):
+        if z_core >= electrons:
+            continue
+        core = element(name).ground
+        if all(occupation.get(sub, 0) == occ for sub, occ in core):
+            return {sub for sub, _ in core}
+    return set()
+
+
+def removal_order(
+    occupations: tuple[tuple[Subshell, int], ...], count: int | None = None
+) -> tuple[Subshell, ...]:
+    """The subshell that loses the next electron first, for each electron of a cation.
+
+    Parameters
+    ----------
+    occupations : tuple of (Subshell, int)
+        A configuration (usually a neutral atom's observed one).
+    count : int, optional
+        Stop after this many electrons (default: all of them).
+
+    Returns
+    -------
+    tuple of Subshell
+        One entry per electron, in the order the electrons are removed, until none is left.
+
+    Notes
+    -----
+    Only subshells outside the largest full noble-gas core lose electrons while any
+    remain there: the outermost s and p first (p before s), then the (n−1)d, then the
+    (n−2)f. When they are empty the core's own outer subshells follow by the same rule
+    (for the [Xe] core: 5p, 5s, then 4d). This is common practice in the chemistry of
+    the d and f blocks; NIST's observed ground states of the ions show where it fails
+    (see ``derived_ion_ground``).
+
+    Examples
+    --------
+    >>> order = removal_order(element("Eu").ground)
+    >>> [sub.label for sub in order[:4]]
+    ['6s', '6s', '4f', '4f']
+    """
+    occupation = dict(occupations)
+    order: list[Subshell] = []
+    limit = sum(occupation.values()) if count is None else count
+    while occupation and len(order) < limit:
+        core = _core_of(occupation)
+        valence = [sub for sub in occupation if sub not in core]
+        outer = max(valence, key=_valence_rank)
+        order.append(outer)
+        occupation[outer] -= 1
+        if occupation[outer] == 0:
+            del occupation[outer]
+    return tuple(order)
+
+
+def derived_ion_ground(atom: Element, charge: int) -> tuple[tuple[Subshell, int], ...]:
+    """Ground configuration of an ion derived by rule from the neutral atom's observed one.
+
+    Parameters
+    ----------
+    atom : Element
+    charge : int
+        Net charge; positive removes electrons, negative adds them.
+
+    Returns
+    -------
+    tuple of (Subshell, int)
+        Ordered by (n, l).
+
+    Notes
+    -----
+    Cations lose valence electrons in the order of ``removal_order`` (outermost s and p,
+    then (n−1)d, then (n−2)f; never a closed noble-gas core while valence electrons
+    remain), so Eu³⁺ is [Xe] 4f⁶ and Fe³⁺ [Ar] 3d⁵. Anions gain electrons in Madelung
+    order. Both are common practice; ``parse_spec`` prefers NIST's observed ground
+    configuration where the shipped table has one (V⁺ 3d⁴, La⁺ 5d², Ce²⁺ 4f², …).
+
+    References
+    ----------
+    A. Kramida, Yu. Ralchenko, J. Reader and NIST ASD Team, NIST Atomic Spectra
+    Database, ground states of the ions (which the rule is checked against).
+
+    Examples
+    --------
+    >>> format_with_core(derived_ion_ground(element("U"), 4))
+    '[Rn] 5f2'
+    >>> format_with_core(derived_ion_ground(element("V"), 1))
+    '[Ar] 3d3 4s1'
     """
     occupation = dict(atom.ground)
     if charge > 0:
-        for _ in range(charge):
-            outer = max(occupation, key=lambda sub: (sub.n, sub.l))
+        if charge > atom.Z:
+            raise SpecError(f"charge {charge}: more than the {atom.Z} electrons of {atom.symbol}")
+        for outer in removal_order(atom.ground, charge):
             occupation[outer] -= 1
             if occupation[outer] == 0:
                 del occupation[outer]
@@ -114,6 +268,16 @@ def _ion_ground(atom: Element, charge: int) -> tuple[tuple[Subshell, int], ...]:
                 raise SpecError(f"charge {charge}: too many electrons for the subshell table")
             occupation[target] = occupation.get(target, 0) + 1
     return tuple(sorted(occupation.items()))
+
+
+def _ion_ground(atom: Element, charge: int) -> tuple[tuple[tuple[Subshell, int], ...], Origin]:
+    """The ground configuration of an atom or ion and where it comes from."""
+    if charge == 0:
+        return atom.ground, "observed"
+    found = observed_ion(atom.Z, charge)
+    if found is not None:
+        return found.occupations, "observed"
+    return derived_ion_ground(atom, charge), "derived"
 
 
 def parse_spec(text: str) -> Configuration:
@@ -132,8 +296,8 @@ def parse_spec(text: str) -> Configuration:
     -------
     Configuration
         The explicit configuration if one was typed, otherwise the observed
-        ground configuration of the neutral atom (NIST ASD) or, for an ion,
-        the one derived from it (see Notes).
+        ground configuration (NIST ASD) of the neutral atom or of the ion where the
+        shipped table lists it, else one derived from the neutral atom's (see Notes).
 
     Raises
     ------
@@ -142,14 +306,17 @@ def parse_spec(text: str) -> Configuration:
 
     Notes
     -----
-    Cations lose their outermost electrons first (highest n, then highest l);
-    anions fill in Madelung order. This is common practice and matches the
-    observed ground configuration of most ions, not all.
+    Ions of charge +1 to +4 up to lawrencium take NIST's observed ground
+    configuration. Other cations lose valence electrons first (outermost s and p,
+    then (n−1)d, then (n−2)f; see ``removal_order``); anions fill in Madelung order.
+    ``Configuration.origin`` says which applied.
 
     Examples
     --------
     >>> parse_spec("Fe3+").text
     '1s2 2s2 2p6 3s2 3p6 3d5'
+    >>> parse_spec("Eu3+").text[-18:], parse_spec("Eu3+").origin
+    ('5s2 5p6 4f6', 'observed')
     >>> parse_spec("He+ 2p1").n_electrons
     1
     """
@@ -187,7 +354,8 @@ def parse_spec(text: str) -> Configuration:
     if electrons <= 0:
         raise SpecError(f"{ion}: no electrons left (charge {charge:+d} with Z = {atom.Z})")
     if not tokens:
-        return Configuration(atom, charge, _ion_ground(atom, charge), ion, explicit=False)
+        occupations, origin = _ion_ground(atom, charge)
+        return Configuration(atom, charge, occupations, ion, explicit=False, origin=origin)
     occupations = _read_configuration(tokens)
     count = sum(occ for _, occ in occupations)
     if count != electrons:
@@ -198,7 +366,7 @@ def parse_spec(text: str) -> Configuration:
             f"but {who} has {electrons}"
         )
     spec = f"{ion} {format_configuration(occupations)}"
-    return Configuration(atom, charge, occupations, spec, explicit=True)
+    return Configuration(atom, charge, occupations, spec, explicit=True, origin="typed")
 
 
 def _charge_suffix(charge: int) -> str:

@@ -7,7 +7,13 @@
 
 from zeffir.core.terms._labels import L_SYMBOLS, Parity, term_label
 from zeffir.core.terms._microstates import MAX_TERMS, TermError
-from zeffir.core.terms._notes import OBSERVED_SOURCE, ground_notes, known_hund_miss
+from zeffir.core.terms._notes import (
+    OBSERVED_SOURCE,
+    ObservedLevel,
+    ground_notes,
+    known_hund_miss,
+    observed_level,
+)
 from zeffir.core.terms._terms import (
     Level,
     Term,
@@ -23,6 +29,7 @@ __all__ = [
     "MAX_TERMS",
     "OBSERVED_SOURCE",
     "Level",
+    "ObservedLevel",
     "Parity",
     "Term",
     "TermError",
@@ -32,6 +39,7 @@ __all__ = [
     "ground_notes",
     "known_hund_miss",
     "microstate_count",
+    "observed_level",
     "open_shells",
     "term_label",
 ]

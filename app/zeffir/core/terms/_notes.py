@@ -2,15 +2,41 @@
 
 from __future__ import annotations
 
+from dataclasses import dataclass
 from functools import cache
 from typing import Final
 
-from zeffir.core.config import Configuration, parse_spec
-from zeffir.core.terms._terms import Level, as_configuration, open_shells
+from zeffir.core.config import ION_SOURCE, Configuration, observed_ion, parse_spec
+from zeffir.core.terms._labels import Parity
+from zeffir.core.terms._terms import Level, as_configuration, ground_level, open_shells
 
-__all__ = ["OBSERVED_SOURCE", "ground_notes", "known_hund_miss"]
+__all__ = ["OBSERVED_SOURCE", "ObservedLevel", "ground_notes", "known_hund_miss",
+           "observed_level"]
 
 OBSERVED_SOURCE: Final[str] = "NIST Atomic Spectra Database"
+
+
+@dataclass(frozen=True, slots=True)
+class ObservedLevel:
+    """An observed ground level.
+
+    Attributes
+    ----------
+    text : str
+        NIST's designation, ``°`` for odd: ``'7F0'``, ``'(9/2,1/2)°4'`` (J1 j coupling)
+        or ``'J = 3/2'`` (J alone).
+    J : float
+    parity : {"even", "odd"}
+    level : Level or None
+        The LS level, when NIST names the level in LS coupling.
+    source : str
+    """
+
+    text: str
+    J: float
+    parity: Parity
+    level: Level | None
+    source: str
 
 # Observed ground levels of configurations for which Hund's rules (as applied by
 # ground_level) give another level. Only cases checked against the NIST ASD
@@ -32,6 +58,34 @@ def _misses() -> dict[tuple[int, int, tuple[tuple[int, int, int], ...]], Level]:
 
 def _key(conf: Configuration) -> tuple[int, int, tuple[tuple[int, int, int], ...]]:
     return conf.Z, conf.charge, tuple((sub.n, sub.l, occ) for sub, occ in conf.occupations)
+
+
+def observed_level(configuration: Configuration | str) -> ObservedLevel | None:
+    """The observed ground level of this atom or ion in this configuration, where known.
+
+    Known are the ions of charge +1 to +4 in the shipped NIST table (when the
+    configuration is the observed ground one) and the neutral atoms whose ground level
+    Hund's rules miss.
+
+    Examples
+    --------
+    >>> observed_level("Eu3+").text, observed_level("Pr+").text
+    ('7F0', '(9/2,1/2)°4')
+    >>> observed_level("Eu3+ [Xe] 4f5 5d1") is None
+    True
+    """
+    conf = as_configuration(configuration)
+    ion = observed_ion(conf.Z, conf.charge) if conf.charge > 0 else None
+    if ion is not None and ion.occupations == conf.occupations:
+        parity: Parity = "odd" if ion.parity == "odd" else "even"
+        level = None
+        if ion.multiplicity is not None and ion.L is not None:
+            level = Level(S=(ion.multiplicity - 1) / 2, L=ion.L, J=float(ion.J), parity=parity)
+        return ObservedLevel(ion.level, float(ion.J), parity, level, ION_SOURCE)
+    missed = _misses().get(_key(conf))
+    if missed is not None:
+        return ObservedLevel(missed.display, missed.J, missed.parity, missed, OBSERVED_SOURCE)
+    return None
 
 
 def known_hund_miss(configuration: Configuration | str) -> Level | None:
@@ -57,8 +111,13 @@ def known_hund_miss(configuration: Configuration | str) -> Level | None:
     --------
     >>> known_hund_miss("Ce").display, known_hund_miss("C") is None
     ('1G°4', True)
+    >>> known_hund_miss("Ce+").display, known_hund_miss("Eu3+") is None
+    ('4H°7/2', True)
     """
-    return _misses().get(_key(as_configuration(configuration)))
+    observed = observed_level(configuration)
+    if observed is None or observed.level is None:
+        return None
+    return None if observed.level == ground_level(configuration) else observed.level
 
 
 def ground_notes(configuration: Configuration | str) -> tuple[str, ...]:
@@ -68,7 +127,8 @@ def ground_notes(configuration: Configuration | str) -> tuple[str, ...]:
     -------
     tuple of str
         One note when several subshells are open (the rules are then a rule of
-        thumb), and one when the observed ground level is known to differ.
+        thumb), and one when the observed ground level is known to differ (in L, S
+        or J, or in J where NIST names the level in another coupling).
 
     Examples
     --------
@@ -81,8 +141,23 @@ def ground_notes(configuration: Configuration | str) -> tuple[str, ...]:
         notes.append("several open subshells: Hund's rules were found for one open subshell; "
                      "applied to several (the J rule counting all their electrons together) "
                      "they are a rule of thumb")
-    observed = known_hund_miss(conf)
-    if observed is not None:
-        notes.append(f"Hund's rules miss here: the observed ground level is {observed.display} "
-                     f"({OBSERVED_SOURCE})")
+    observed = observed_level(conf)
+    if observed is None:
+        return tuple(notes)
+    hund = ground_level(conf)
+    if observed.level is not None and observed.level != hund:
+        notes.append(f"Hund's rules miss here: the observed ground level is {observed.text} "
+                     f"({observed.source})")
+    elif observed.level is None and observed.J != hund.J:
+        notes.append(f"Hund's rules miss here: the observed ground level is {observed.text} "
+                     f"({observed.source}), J = {_half(observed.J)} against "
+                     f"{_half(hund.J)}")
+    elif observed.level is None:
+        notes.append(f"NIST names the observed ground level {observed.text} in another "
+                     f"coupling; its J ({_half(observed.J)}) agrees with Hund's rules")
     return tuple(notes)
+
+
+def _half(value: float) -> str:
+    twice = round(2 * value)
+    return str(twice // 2) if twice % 2 == 0 else f"{twice}/2"
