@@ -21,7 +21,7 @@ REFERENCES: Final[tuple[str, ...]] = (
     "E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963) — optimised exponents, Z = 2–36.",
     "E. Clementi, D. L. Raimondi and W. P. Reinhardt, J. Chem. Phys. 47, 1300 (1967) — Z = 37–86.",
     "A. Kramida, Yu. Ralchenko, J. Reader and NIST ASD Team, NIST Atomic Spectra Database — "
-    "ground levels and configurations.",
+    "ground levels and configurations of the neutral atoms and of the ions (spectra II to V).",
     "H. A. Bethe and E. E. Salpeter, Quantum Mechanics of One- and Two-Electron Atoms (1957).",
     "M. Abramowitz and I. A. Stegun, Handbook of Mathematical Functions (1964).",
     "E. U. Condon and G. H. Shortley, The Theory of Atomic Spectra (1935) — phase convention.",
