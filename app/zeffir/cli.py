@@ -393,6 +393,13 @@ def _window(session: str | None) -> int:
         print("zeffir: no display found, so the window cannot open; showing the demo as text "
               "(use 'zeffir table' and 'zeffir figure' without a display).", file=sys.stderr)
         return _demo()
+    from zeffir._display_check import check_platform
+
+    # Qt aborts the process (exit 134) when its platform plugin cannot load; say why first.
+    problem = check_platform()
+    if problem is not None:
+        print(problem.message(), file=sys.stderr)
+        return _demo()
     from zeffir.ui import run_window
 
     return run_window(session=session)
@@ -541,8 +548,9 @@ def figure_state(args: argparse.Namespace) -> ViewState:
                               show_difference=not args.no_difference)
     if args.versus is not None:
         versus = args.versus.strip()
-        right = Source(spec, versus) if versus in model_names() else Source(versus, args.model)
-        compare = replace(compare, enabled=True, right=right)
+        same_atom = versus in model_names()
+        right = Source(spec, versus) if same_atom else Source(versus, args.model)
+        compare = replace(compare, enabled=True, right=right, same_atom=same_atom)
     if view in ("pair", "two-electron") and args.versus is not None:
         raise _InputError(f"--versus: the {view} view compares its own panels; leave --versus out")
     reference = (0.0, 0.0, 1.0)
