@@ -19,7 +19,7 @@ SMALL = SliceSettings(plane="xy", extent=6.0, resolution=40, quantity="psi2", lo
 @pytest.fixture(scope="module")
 def state():
     return ViewState(
-        slice=SMALL, compare=CompareSettings(True, Source("Mg", "slater")),
+        slice=SMALL, compare=CompareSettings(True, Source("Mg", "slater"), same_atom=False),
     ).validated()
 
 

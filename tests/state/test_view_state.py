@@ -26,7 +26,7 @@ def test_round_trip_keeps_every_field():
         length_unit="angstrom",
         slice=SliceSettings(plane="custom", normal=(1.0, 1.0, 0.0), offset=0.3, extent=4.0,
                             resolution=300, quantity="psi2", log_scale=True, contours=5),
-        compare=CompareSettings(True, Source("Fe3+", "hydrogenic"), False),
+        compare=CompareSettings(True, Source("Fe3+", "hydrogenic"), False, same_atom=False),
     ).validated()
     assert ViewState.from_dict(state.to_dict()) == state
 
@@ -43,7 +43,8 @@ def test_round_trip_keeps_every_field():
         ({"view": "cube"}, "view: 'cube' is not one of"),
         ({"radial": {"quantity": "X"}}, "radial.quantity"),
         ({"radial": "D"}, "radial: expected an object"),
-        ({"compare": {"enabled": True, "right": {"spec": "C 2p7"}}}, "compare.right.spec: 2p7"),
+        ({"compare": {"enabled": True, "same_atom": False, "right": {"spec": "C 2p7"}}},
+         "compare.right.spec: 2p7"),
     ],
 )
 def test_invalid_fields_are_named(patch, message):

@@ -91,8 +91,8 @@ def test_radial_comparison_difference(window):
 def test_closing_a_comparison_fits_the_value_axis_to_the_left_curves(window):
     # Xe's radial distribution peaks far higher than Na's; once the comparison is off,
     # the hidden right-hand view must not keep the left one's value axis stretched.
-    window.model.update(compare=CompareSettings(True, Source("Xe", "slater"), False))
-    window.model.update(compare=CompareSettings(False, Source("Xe", "slater"), False))
+    window.model.update(compare=CompareSettings(True, Source("Xe", "slater"), False, same_atom=False))
+    window.model.update(compare=CompareSettings(False, Source("Xe", "slater"), False, same_atom=False))
     left = window.radial_trio.views[0]
     top = max(float(np.nanmax(y)) for _, y in left.curve_data().values())
     _, y_high = left._plot.getViewBox().viewRange()[1]

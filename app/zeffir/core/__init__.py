@@ -7,7 +7,13 @@ Everything a script or notebook needs::
     orbitals.orbital("3s").z_eff          # 2.5074
 """
 
-from zeffir.core._errors import ModelError, QuantumNumberError, SpecError, ZeffirError
+from zeffir.core._errors import (
+    ComputationCancelled,
+    ModelError,
+    QuantumNumberError,
+    SpecError,
+    ZeffirError,
+)
 from zeffir.core._units import (
     ANGSTROM_PER_BOHR,
     CODATA_EDITION,
@@ -55,6 +61,7 @@ __all__ = [
     "CODATA_EDITION",
     "DEFAULT_MODEL",
     "EV_PER_HARTREE",
+    "ComputationCancelled",
     "Configuration",
     "Element",
     "HydrogenicRadial",

@@ -1,6 +1,6 @@
 """Exception types of the computation core, one per domain."""
 
-__all__ = ["ModelError", "QuantumNumberError", "SpecError", "ZeffirError"]
+__all__ = ["ComputationCancelled", "ModelError", "QuantumNumberError", "SpecError", "ZeffirError"]
 
 
 class ZeffirError(Exception):
@@ -21,3 +21,7 @@ class QuantumNumberError(ZeffirError, ValueError):
 
 class ModelError(ZeffirError, ValueError):
     """An unknown model name, or a model that cannot treat a configuration."""
+
+
+class ComputationCancelled(ZeffirError):
+    """A long computation stopped because its caller asked it to (not a failure of the input)."""

@@ -26,10 +26,12 @@ from zeffir.export._style import (
     subshell_line_style,
 )
 from zeffir.scene import (
+    PairScenes,
     RadialComparison,
     RadialScene,
     SliceComparison,
     SliceScene,
+    TwoElectronScenes,
     colour_stops,
 )
 
@@ -138,6 +140,10 @@ def _draw(target: Target, width: float, difference: bool) -> Figure:
         return _radial_figure([target.left, target.right], width, target.difference if difference else None)
     if isinstance(target, SliceScene):
         return _slice_figure(target, width)
+    if isinstance(target, PairScenes | TwoElectronScenes):
+        # Their third panel (exchange hole; triplet − singlet) is part of the view, not
+        # the comparison's optional difference.
+        return _slice_comparison_figure(target, width, True)
     return _slice_comparison_figure(target, width, difference)
 
 

@@ -1,13 +1,21 @@
-"""Orbital sets for the views, built once per (spec, model) and reused."""
+"""Orbital sets for the views, built once per (spec, model) and reused.
+
+A failed build is remembered too, so a model that cannot treat a configuration runs
+once, not once for the table and again for every view; ``forget_failure`` lets the
+user ask for a fresh attempt. A cancelled build is not a failure and is not kept.
+"""
 
 from __future__ import annotations
 
 from functools import lru_cache
 
-from zeffir.core import OrbitalSet, build
+from zeffir.core import ComputationCancelled, OrbitalSet, ZeffirError, build
 from zeffir.state import Source
 
-__all__ = ["orbitals_for"]
+__all__ = ["forget_failure", "known_failure", "orbitals_for"]
+
+_MAX_FAILURES = 64
+_failures: dict[tuple[str, str], ZeffirError] = {}
 
 
 @lru_cache(maxsize=64)
@@ -15,6 +23,39 @@ def _cached(spec: str, model: str) -> OrbitalSet:
     return build(spec, model)
 
 
+def _key(source: Source) -> tuple[str, str]:
+    return source.spec.strip(), source.model
+
+
 def orbitals_for(source: Source) -> OrbitalSet:
-    """The orbital set of a source (cached: sets are immutable, and their tables stay warm)."""
-    return _cached(source.spec.strip(), source.model)
+    """The orbital set of a source (cached: sets are immutable, and their tables stay warm).
+
+    Raises
+    ------
+    ZeffirError
+        The model cannot treat the configuration; the same error again, without
+        recomputing, until :func:`forget_failure` is called for the source.
+    """
+    key = _key(source)
+    failure = _failures.get(key)
+    if failure is not None:
+        raise failure
+    try:
+        return _cached(*key)
+    except ComputationCancelled:
+        raise
+    except ZeffirError as error:
+        if len(_failures) >= _MAX_FAILURES:
+            _failures.pop(next(iter(_failures)))
+        _failures[key] = error
+        raise
+
+
+def known_failure(source: Source) -> ZeffirError | None:
+    """The remembered failure of a source, or None."""
+    return _failures.get(_key(source))
+
+
+def forget_failure(source: Source) -> None:
+    """Forget a remembered failure, so the next request builds the source again."""
+    _failures.pop(_key(source), None)

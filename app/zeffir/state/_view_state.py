@@ -130,11 +130,16 @@ class TwoElectronSettings:
 
 @dataclass(frozen=True)
 class CompareSettings:
-    """The side-by-side comparison: the right-hand source and whether it is on."""
+    """The side-by-side comparison: the right-hand source and whether it is on.
+
+    With ``same_atom`` (the default) the right-hand side follows the main atom and only
+    its model is its own; a different atom there is a deliberate, saved choice.
+    """
 
     enabled: bool = False
     right: Source = field(default_factory=lambda: Source("Na", "clementi"))
     show_difference: bool = True
+    same_atom: bool = True
 
 
 @dataclass(frozen=True)
@@ -164,6 +169,13 @@ class ViewState:
             Naming the first offending field, e.g. ``slice.resolution: ...``.
         """
         self.left.validated()
+        state = self
+        if self.compare.same_atom and self.compare.right.spec != self.left.spec:
+            right = replace(self.compare.right, spec=self.left.spec)
+            state = replace(self, compare=replace(self.compare, right=right))
+        return state._validated()
+
+    def _validated(self) -> ViewState:
         if self.compare.enabled:
             try:
                 self.compare.right.validated()
@@ -211,6 +223,14 @@ class ViewState:
         """
         if not isinstance(data, dict):
             raise StateError("state: expected an object")
+        compare = data.get("compare")
+        if isinstance(compare, dict) and "same_atom" not in compare:
+            # Sessions written before the setting existed: a right-hand atom that differs
+            # from the main one was chosen on purpose.
+            right, left = compare.get("right"), data.get("left")
+            same = (isinstance(right, dict) and isinstance(left, dict)
+                    and right.get("spec", Source().spec) == left.get("spec", Source().spec))
+            data = {**data, "compare": {**compare, "same_atom": same}}
         return _from_dict(cls, data, "").validated()
 
 

@@ -27,9 +27,12 @@ class SourceFields(QWidget):
         A valid spec or a new model was entered (typing is debounced by 250 ms;
         Return commits at once). An invalid spec shows the parser's message beside
         the field and emits nothing, so the last valid state stays on screen.
+    resubmitted(Source)
+        Return was pressed on the spec already in the state (a request to retry).
     """
 
     source_edited = Signal(object)
+    resubmitted = Signal(object)
 
     def __init__(self, caption: str, parent: QWidget | None = None, stacked: bool = False) -> None:
         super().__init__(parent)
@@ -56,6 +59,8 @@ class SourceFields(QWidget):
         self._debounce.timeout.connect(self._commit)
         label = QLabel(caption)
         label.setBuddy(self.spec_edit)
+        model_label = QLabel("Model")
+        model_label.setBuddy(self.model_box)
         if stacked:
             # For narrow places (the side panel): the model chooser gets its own row, so
             # long model names stay readable.
@@ -63,7 +68,7 @@ class SourceFields(QWidget):
             grid.setContentsMargins(0, 0, 0, 0)
             grid.addWidget(label, 0, 0)
             grid.addWidget(self.spec_edit, 0, 1)
-            grid.addWidget(QLabel("Model"), 1, 0)
+            grid.addWidget(model_label, 1, 0)
             grid.addWidget(self.model_box, 1, 1)
             grid.addWidget(self.message, 2, 0, 1, 2)
             grid.setColumnStretch(1, 1)
@@ -72,11 +77,11 @@ class SourceFields(QWidget):
             layout.setContentsMargins(0, 0, 0, 0)
             layout.addWidget(label)
             layout.addWidget(self.spec_edit, 2)
-            layout.addWidget(QLabel("Model"))
+            layout.addWidget(model_label)
             layout.addWidget(self.model_box)
             layout.addWidget(self.message, 3)
         self.spec_edit.textEdited.connect(self._on_text)
-        self.spec_edit.returnPressed.connect(self._commit)
+        self.spec_edit.returnPressed.connect(self._on_return)
         self.model_box.activated.connect(lambda _index: self._commit())
 
     def show_source(self, source: Source) -> None:
@@ -114,15 +119,24 @@ class SourceFields(QWidget):
         self.message.setToolTip("")
         return True
 
-    def _commit(self) -> None:
+    def _on_return(self) -> None:
+        if not self._commit():
+            source = Source(self.spec_edit.text().strip(), str(self.model_box.currentData()))
+            if source == self._source:
+                self.resubmitted.emit(source)
+
+    def _commit(self) -> bool:
+        """Emit the typed source if it is valid and new; True when it was emitted."""
         self._debounce.stop()
         text = self.spec_edit.text().strip()
         if not self._validate(text):
-            return
+            return False
         source = Source(text, str(self.model_box.currentData()))
         if source != self._source:
             self._source = source
             self.source_edited.emit(source)
+            return True
+        return False
 
 
 class AtomBar(QWidget):
@@ -130,13 +144,14 @@ class AtomBar(QWidget):
 
     Signals
     -------
-    source_edited(Source)
+    source_edited(Source), resubmitted(Source)
         See :class:`SourceFields`.
     orbital_edited(OrbitalChoice)
         The user picked another subshell or orbital.
     """
 
     source_edited = Signal(object)
+    resubmitted = Signal(object)
     orbital_edited = Signal(object)
 
     def __init__(self, parent: QWidget | None = None) -> None:
@@ -158,6 +173,7 @@ class AtomBar(QWidget):
         layout.addWidget(self.subshell_box)
         layout.addWidget(self.orbital_box)
         self.source_fields.source_edited.connect(self.source_edited)
+        self.source_fields.resubmitted.connect(self.resubmitted)
         self.subshell_box.activated.connect(lambda _i: self._emit_orbital(reset_m=True))
         self.orbital_box.activated.connect(lambda _i: self._emit_orbital(reset_m=False))
 

@@ -23,6 +23,7 @@ from zeffir.core import ZeffirError, parse_spec
 from zeffir.scene import QUANTITIES
 from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, PairSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
+from zeffir.ui._wheel_guard import guard_wheel
 
 __all__ = ["ViewControls"]
 
@@ -92,6 +93,7 @@ class ViewControls(QWidget):
         self._slice_timer.setSingleShot(True)
         self._slice_timer.setInterval(60)
         self._slice_timer.timeout.connect(self._emit_slice)
+        guard_wheel(self)
 
     # -- construction ---------------------------------------------------------------
     def _build_units(self) -> QGroupBox:
@@ -179,16 +181,21 @@ class ViewControls(QWidget):
         box = QGroupBox("Side by side")
         layout = QVBoxLayout(box)
         self.compare_on = QCheckBox("Compare with a second model or atom")
+        self.same_atom = QCheckBox("Same atom as the Atom field")
+        self.same_atom.setToolTip("The comparison follows the main atom; untick to compare "
+                                  "with another atom or ion (shown in every title)")
         self.compare_source = SourceFields("Versus", stacked=True)
         self.compare_source.spec_edit.setMinimumWidth(80)
         _shrinkable(self.compare_source.model_box, 10)
         self.compare_source.message.setWordWrap(True)
         self.show_difference = QCheckBox("Show the difference (right − left)")
         layout.addWidget(self.compare_on)
+        layout.addWidget(self.same_atom)
         layout.addWidget(self.compare_source)
         layout.addWidget(self.show_difference)
         self.compare_on.toggled.connect(lambda _b: self._emit_compare())
         self.show_difference.toggled.connect(lambda _b: self._emit_compare())
+        self.same_atom.toggled.connect(lambda _b: self._emit_compare())
         self.compare_source.source_edited.connect(lambda _s: self._emit_compare())
         return box
 
@@ -254,7 +261,7 @@ class ViewControls(QWidget):
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
             self.offset, self.extent, self.resolution, self.log_scale, self.contours,
             self.full_range,
-            self.compare_on, self.show_difference,
+            self.compare_on, self.show_difference, self.same_atom,
         ]
         for widget in widgets:
             widget.blockSignals(True)
@@ -283,8 +290,11 @@ class ViewControls(QWidget):
         c = state.compare
         self.compare_on.setChecked(c.enabled)
         self.show_difference.setChecked(c.show_difference)
+        self.same_atom.setChecked(c.same_atom)
+        self.same_atom.setEnabled(c.enabled)
         self.compare_source.show_source(c.right)
         self.compare_source.setEnabled(c.enabled)
+        self.compare_source.spec_edit.setEnabled(c.enabled and not c.same_atom)
         self.show_difference.setEnabled(c.enabled)
         self.spin_box.blockSignals(True)
         self.spin_box.setCurrentIndex(self.spin_box.findData(state.pair.spin))
@@ -349,13 +359,17 @@ class ViewControls(QWidget):
         ))
 
     def _emit_compare(self) -> None:
-        right = self._state.compare.right
+        right = replace(self._state.compare.right,
+                        model=str(self.compare_source.model_box.currentData()))
         text = self.compare_source.spec_edit.text().strip()
-        if not self.compare_source.error_text() and text:
-            right = replace(right, spec=text,
-                            model=str(self.compare_source.model_box.currentData()))
+        same_atom = self.same_atom.isChecked()
+        if same_atom:
+            right = replace(right, spec=self._state.left.spec)
+        elif not self.compare_source.error_text() and text:
+            right = replace(right, spec=text)
         self.compare_edited.emit(CompareSettings(
             enabled=self.compare_on.isChecked(),
             right=right,
             show_difference=self.show_difference.isChecked(),
+            same_atom=same_atom,
         ))

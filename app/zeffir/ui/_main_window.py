@@ -9,11 +9,13 @@ from typing import Any
 from PySide6.QtCore import QSettings, Qt, QTimer, Slot
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
+    QAbstractButton,
     QComboBox,
     QDialog,
     QDialogButtonBox,
     QFileDialog,
     QFormLayout,
+    QFrame,
     QHBoxLayout,
     QLabel,
     QMainWindow,
@@ -28,10 +30,11 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.core import subshell_table
+from zeffir.core import get_model, subshell_table
 from zeffir.scene import (
     compare_radial,
     compare_slices,
+    forget_failure,
     length_factor,
     orbitals_for,
     pair_scenes,
@@ -48,6 +51,7 @@ from zeffir.ui._radial_view import RadialView
 from zeffir.ui._slice_view import SliceView
 from zeffir.ui._state_model import StateModel
 from zeffir.ui._subshell_table import SubshellTable
+from zeffir.ui._wheel_guard import guard_wheel
 from zeffir.ui._worker import SceneWorker
 
 __all__ = ["MainWindow"]
@@ -56,6 +60,8 @@ SESSION_FILTER = "Zeffir sessions (*.zeffir)"
 MAX_RECENT = 8
 #: Contour lines are traced this long after a new slice image (so the image paints first).
 CONTOUR_DELAY_MS = 25
+#: A view still computing says so on its picture after this long (quick redraws stay quiet).
+BUSY_BANNER_DELAY_MS = 400
 
 
 def _radial_job(state: ViewState) -> Any:
@@ -90,7 +96,23 @@ def _contour_job(scenes: list[Any]) -> Any:
 
 def _table_job(source: Source) -> Any:
     orbitals = orbitals_for(source)
-    return subshell_table(orbitals), _energy_summary(source, orbitals)
+    return source, subshell_table(orbitals), _energy_summary(source, orbitals)
+
+
+def describe(state: ViewState) -> str:
+    """'Fe — Slater's rules', with the comparison's side when one is shown."""
+    text = _source_text(state.left)
+    if state.compare.enabled and state.view in ("radial", "slice"):
+        text += f" vs {_source_text(state.compare.right)}"
+    return text
+
+
+def _source_text(source: Source) -> str:
+    try:
+        title = get_model(source.model).title
+    except Exception:  # an unknown model is reported elsewhere; name it as given
+        title = source.model
+    return f"{source.spec} — {title}"
 
 
 def _energy_summary(source: Source, orbitals: Any) -> str:
@@ -192,6 +214,13 @@ class MainWindow(QMainWindow):
         self.worker = SceneWorker(self, synchronous=synchronous)
         self.session_path: Path | None = None
         self.last_export: Path | None = None
+        # What each view was last asked to show, what its picture was computed from,
+        # and why the two differ (a failure or a cancel) when they do.
+        self._asked: dict[str, ViewState] = {}
+        self._drawn: dict[str, ViewState] = {}
+        self._trouble: dict[str, str] = {}
+        self._table_asked: Source | None = None
+        self._table_drawn: Source | None = None
         self._build_widgets()
         self._build_menus()
         self.model.changed.connect(self._on_state_changed)
@@ -199,6 +228,10 @@ class MainWindow(QMainWindow):
         self.worker.finished.connect(self._on_result)
         self.worker.failed.connect(self._on_failure)
         self.worker.busy.connect(self._on_busy)
+        self._banner_timer = QTimer(self)
+        self._banner_timer.setSingleShot(True)
+        self._banner_timer.setInterval(BUSY_BANNER_DELAY_MS)
+        self._banner_timer.timeout.connect(self._refresh_banner)
         self.worker.progress.connect(lambda message: self.statusBar().showMessage(message, 4000))
         self._show_state(self.model.state)
         self._request_all()
@@ -247,8 +280,29 @@ class MainWindow(QMainWindow):
         table_layout.setSpacing(0)
         table_layout.addWidget(self.table, 1)
         table_layout.addWidget(self.energy_line)
+        self.banner = QFrame()
+        self.banner.setObjectName("staleBanner")
+        self.banner.setStyleSheet("#staleBanner { background: #fff3cd; border: 1px solid #d9a400; }")
+        self.banner_text = QLabel()
+        self.banner_text.setWordWrap(True)
+        self.banner_text.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        self.retry_button = QPushButton("Retry")
+        self.retry_button.setToolTip("Compute what the controls ask for again (also: Return in "
+                                     "the Atom field)")
+        self.retry_button.clicked.connect(self.retry)
+        banner_layout = QHBoxLayout(self.banner)
+        banner_layout.setContentsMargins(8, 4, 8, 4)
+        banner_layout.addWidget(self.banner_text, 1)
+        banner_layout.addWidget(self.retry_button)
+        self.banner.setVisible(False)
+        views_box = QWidget()
+        views_layout = QVBoxLayout(views_box)
+        views_layout.setContentsMargins(0, 0, 0, 0)
+        views_layout.setSpacing(2)
+        views_layout.addWidget(self.banner)
+        views_layout.addWidget(self.tabs, 1)
         views_and_table = QSplitter(Qt.Orientation.Vertical)
-        views_and_table.addWidget(self.tabs)
+        views_and_table.addWidget(views_box)
         views_and_table.addWidget(table_box)
         views_and_table.setStretchFactor(0, 1)
         views_and_table.setSizes([760, 170])
@@ -269,10 +323,11 @@ class MainWindow(QMainWindow):
         self.progress.setVisible(False)
         self.cancel_button = QPushButton("Cancel")
         self.cancel_button.setVisible(False)
-        self.cancel_button.clicked.connect(self.worker.cancel)
+        self.cancel_button.clicked.connect(self.cancel)
         self.statusBar().addPermanentWidget(self.progress)
         self.statusBar().addPermanentWidget(self.cancel_button)
         self.atom_bar.source_edited.connect(lambda s: self.model.update(left=s))
+        self.atom_bar.resubmitted.connect(lambda _s: self.retry())
         self.atom_bar.orbital_edited.connect(lambda o: self.model.update(orbital=o))
         self.table.subshell_selected.connect(self._select_subshell)
         self.controls.radial_edited.connect(lambda r: self.model.update(radial=r))
@@ -286,6 +341,8 @@ class MainWindow(QMainWindow):
             view.clicked.connect(self._place_reference)
         for trio in (self.radial_trio, self.slice_trio, self.pair_trio, self.two_trio):
             self._link_cursors(trio)
+        guard_wheel(self.atom_bar)
+        _name_inputs_by_label(self)
 
     def _place_reference(self, u: float, v: float) -> None:
         """Put the pair view's reference electron where the user clicked (on the slice plane)."""
@@ -345,12 +402,16 @@ class MainWindow(QMainWindow):
     @Slot(object, object)
     def _on_state_changed(self, new: ViewState, old: ViewState) -> None:
         self._show_state(new)
-        if new.left != old.left:
-            self.worker.request("table", lambda s=new.left: _table_job(s))
+        if new.left != old.left or new.length_unit != old.length_unit:
+            self._request_table(new.left)
+        drawn = self._drawn.get(new.view)
         if new.view != old.view or _view_inputs(new) != _view_inputs(old):
-            self._request_view(new)
-        if new.length_unit != old.length_unit:
-            self.worker.request("table", lambda s=new.left: _table_job(s))
+            if drawn is None or _view_inputs(drawn) != _view_inputs(new):
+                self._request_view(new)
+            else:  # back to what the picture already shows: nothing to compute
+                self._asked[new.view] = new
+                self._trouble.pop(new.view, None)
+        self._refresh_banner()
 
     def _show_state(self, state: ViewState) -> None:
         self.atom_bar.show_state(state.left, state.orbital)
@@ -370,31 +431,115 @@ class MainWindow(QMainWindow):
 
     def _request_all(self) -> None:
         state = self.model.state
-        self.worker.request("table", lambda s=state.left: _table_job(s))
+        self._request_table(state.left)
         self._request_view(state)
+
+    def _request_table(self, source: Source) -> None:
+        self._table_asked = source
+        self._trouble.pop("table", None)
+        self.worker.request("table", lambda s=source: _table_job(s))
 
     def _request_view(self, state: ViewState) -> None:
         job = _JOBS[state.view]
-        self.worker.request(state.view, lambda s=state: job(s))
+        self._asked[state.view] = state
+        self._trouble.pop(state.view, None)
+        self._banner_timer.start()
+        self.worker.request(state.view, lambda s=state: (s, job(s)))
+
+    # -- what is drawn against what was asked -----------------------------------------
+    @property
+    def state(self) -> ViewState:
+        """The state the controls show (what the user asked for)."""
+        return self.model.state
+
+    def apply(self, state: ViewState) -> bool:
+        """Adopt ``state`` as if the user had made those edits; False if it is invalid."""
+        accepted = self.model.set_state(state)
+        self._show_state(self.model.state)
+        return accepted
+
+    def drawn(self, view: str) -> ViewState | None:
+        """The state the named view's current picture was computed from, or None.
+
+        Views: ``radial``, ``slice``, ``pair``, ``two-electron`` (``terms`` has no
+        picture of its own here yet, so it is always None).
+        """
+        return self._drawn.get(view)
+
+    def problem(self) -> str | None:
+        """None when the current view shows what the controls ask; else the standing message."""
+        state = self.model.state
+        view = state.view
+        drawn = self._drawn.get(view)
+        parts: list[str] = []
+        if drawn is None or _view_inputs(drawn) != _view_inputs(state):
+            showing = "nothing yet" if drawn is None else describe(drawn)
+            reason = self._trouble.get(view, "computing…")
+            parts.append(f"showing: {showing}; asked: {describe(state)} — {reason}")
+        table_trouble = self._trouble.get("table")
+        if table_trouble and self._table_drawn != state.left and view not in self._trouble:
+            shown = "nothing" if self._table_drawn is None else _source_text(self._table_drawn)
+            parts.append(f"table shows {shown}; asked: {_source_text(state.left)} — "
+                         f"{table_trouble}")
+        return " · ".join(parts) or None
+
+    def retry(self) -> None:
+        """Compute what the controls ask for again, forgetting remembered failures."""
+        state = self.model.state
+        forget_failure(state.left)
+        if state.compare.enabled:
+            forget_failure(state.compare.right)
+        self._request_table(state.left)
+        self._request_view(state)
+        self._refresh_banner()
+
+    def cancel(self) -> None:
+        """Stop every running or waiting computation; the views say what they still show."""
+        self.worker.cancel()
+        for key in (*self._asked, "table"):
+            if key == "table":
+                if self._table_asked is not None and self._table_asked != self._table_drawn:
+                    self._trouble["table"] = "cancelled"
+                continue
+            drawn = self._drawn.get(key)
+            if drawn is None or _view_inputs(drawn) != _view_inputs(self._asked[key]):
+                self._trouble[key] = "cancelled"
+        self._refresh_banner()
+
+    def _refresh_banner(self) -> None:
+        text = self.problem()
+        computing = text is not None and all(
+            part.endswith("computing…") for part in text.split(" · "))
+        if computing and self._banner_timer.isActive():
+            return  # still within the quiet delay
+        self.banner_text.setText(text or "")
+        self.banner.setVisible(text is not None)
+        self.retry_button.setVisible(text is not None and not computing)
 
     @Slot(str, object)
     def _on_result(self, key: str, result: Any) -> None:
         state = self.model.state
         if key == "table":
-            rows, summary = result
+            source, rows, summary = result
+            self._table_drawn = source
+            self._trouble.pop("table", None)
             self.table.show_rows(rows, state.orbital.subshell, state.length_unit)
             self.energy_line.setText(summary)
+            self._refresh_banner()
             return
         if key == "export":
             self.last_export = result
             self.statusBar().showMessage(f"Exported {result}", 8000)
             return
-        parts = ([result.left, result.right, result.difference]
-                 if hasattr(result, "difference") else [result])
         if key.endswith("-contours"):
             for view, scene in zip(self._trios[key.removesuffix("-contours")].views, result, strict=False):
                 view.show_contours(scene)
             return
+        drawn_state, result = result
+        self._drawn[key] = drawn_state
+        self._trouble.pop(key, None)
+        parts = ([result.left, result.right, result.difference]
+                 if hasattr(result, "difference") else [result])
         trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
@@ -407,6 +552,7 @@ class MainWindow(QMainWindow):
             QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts, k=key: self.worker.request(
                 f"{k}-contours", lambda: _contour_job(p)))
         self.statusBar().clearMessage()
+        self._refresh_banner()
 
     @Slot(str, str)
     def _on_failure(self, key: str, message: str) -> None:
@@ -414,7 +560,12 @@ class MainWindow(QMainWindow):
             self.statusBar().clearMessage()
             QMessageBox.warning(self, "Nothing exported", message)
             return
-        self.statusBar().showMessage(f"Could not compute the {key} view: {message}", 10000)
+        if key.endswith("-contours"):
+            self.statusBar().showMessage(f"Contour lines not drawn: {message}", 8000)
+            return
+        self._trouble[key] = f"failed: {message}"
+        self._banner_timer.stop()
+        self._refresh_banner()
 
     @Slot(bool)
     def _on_busy(self, active: bool) -> None:
@@ -540,6 +691,11 @@ class MainWindow(QMainWindow):
         return self._export(Path(path), None, 300)
 
     def _export(self, path: Path, width: str | None, dpi: int) -> bool:
+        problem = self.problem()
+        if problem is not None:
+            self.statusBar().showMessage(
+                f"Not exported: the view does not show what the controls ask ({problem})", 10000)
+            return False
         # Rendering a figure takes about a second (matplotlib): it runs in the worker.
         def job(state: ViewState = self.model.state) -> Path:
             from zeffir.export import export_view
@@ -557,6 +713,27 @@ class MainWindow(QMainWindow):
         self.settings.setValue("geometry", self.saveGeometry())
         self.worker.shutdown()
         super().closeEvent(event)
+
+
+def _name_inputs_by_label(root: QWidget) -> None:
+    """Give every input control the text of its visible label as its accessible name."""
+    for label in root.findChildren(QLabel):
+        buddy = label.buddy()
+        text = label.text().replace("&", "").strip().rstrip(":")
+        if buddy is not None and text and not buddy.accessibleName():
+            buddy.setAccessibleName(text)
+    for layout in root.findChildren(QFormLayout):
+        for row in range(layout.rowCount()):
+            label_item = layout.itemAt(row, QFormLayout.ItemRole.LabelRole)
+            field_item = layout.itemAt(row, QFormLayout.ItemRole.FieldRole)
+            if label_item is None or field_item is None:
+                continue
+            label, field = label_item.widget(), field_item.widget()
+            if isinstance(label, QLabel) and field is not None and not field.accessibleName():
+                field.setAccessibleName(label.text().replace("&", "").strip().rstrip(":"))
+    for button in root.findChildren(QAbstractButton):
+        if not button.accessibleName() and button.text():
+            button.setAccessibleName(button.text().replace("&", ""))
 
 
 def _point_mapper(state: ViewState) -> Any:

@@ -15,7 +15,7 @@ import numpy.typing as npt
 
 from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
-from zeffir.core._errors import ModelError
+from zeffir.core._errors import ComputationCancelled, ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
 
@@ -364,7 +364,7 @@ class HartreeFockError(ModelError):
         self.state = state
 
 
-class HartreeFockCancelled(HartreeFockError):
+class HartreeFockCancelled(HartreeFockError, ComputationCancelled):
     """``should_stop`` asked the run to stop; ``state`` holds the last iteration."""
 
 

@@ -11,7 +11,7 @@ import numpy.typing as npt
 
 from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
-from zeffir.core._errors import ModelError
+from zeffir.core._errors import ComputationCancelled, ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.models._slater_rules import slater_screening
 from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
@@ -231,7 +231,7 @@ class OptimisationError(ModelError):
         self.state = state
 
 
-class OptimisationCancelled(OptimisationError):
+class OptimisationCancelled(OptimisationError, ComputationCancelled):
     """``should_stop`` asked the optimisation to stop; ``state`` holds the last point."""
 
 
