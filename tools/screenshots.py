@@ -68,6 +68,16 @@ def main(out: Path) -> int:
     model.update(left=Source("Na [Ne] 4s1", "hartree-fock"), orbital=OrbitalChoice("4s"),
                  compare=replace(model.state.compare, enabled=False))
     shot("11-radial-excited")
+    # A failed build: the strip names what is drawn and what was asked.
+    model.update(left=Source("Eu3+", "slater"), orbital=OrbitalChoice("4f"))
+    shot("12-before-failed-build")
+    model.update(left=Source("Be-", "hartree-fock"))
+    shot("13-after-failed-build")
+    model.update(left=Source("Eu3+", "slater"), view="slice")
+    window.resize(1280, 720)
+    shot("14-slice-1280x720")
+    model.update(left=Source("Be-", "hartree-fock"))
+    shot("15-slice-failed-1280x720")
     window.worker.shutdown()
     return 0
 

@@ -34,7 +34,13 @@ def run_window(argv: Sequence[str] | None = None, session: str | None = None) ->
     window = MainWindow(demo_state())  # type: ignore[arg-type]
     if session:
         window.open_session(session)
-    window.resize(1600, 1000)
+    screen = app.primaryScreen()
+    room = screen.availableGeometry() if screen is not None else None
+    if room is not None:  # 1600×1000 where it fits; on a small screen, what there is
+        window.resize(min(1600, room.width()), min(1000, room.height()))
+    else:
+        window.resize(1600, 1000)
+    window.restore_layout()
     window.show()
     if os.environ.get("ZEFFIR_EXIT_AFTER_SHOW"):  # used by the cold-start benchmark
         from PySide6.QtCore import QTimer

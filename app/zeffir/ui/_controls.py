@@ -83,11 +83,14 @@ class ViewControls(QWidget):
         layout = QVBoxLayout(self)
         layout.setContentsMargins(4, 4, 4, 4)
         layout.addWidget(self._build_units())
-        layout.addWidget(self._build_radial())
-        layout.addWidget(self._build_slice())
-        layout.addWidget(self._build_compare())
-        layout.addWidget(self._build_pair())
-        layout.addWidget(self._build_two_electron())
+        self.radial_box = self._build_radial()
+        self.slice_box = self._build_slice()
+        self.compare_box = self._build_compare()
+        self.pair_box = self._build_pair()
+        self.two_electron_box = self._build_two_electron()
+        for box in (self.radial_box, self.slice_box, self.compare_box, self.pair_box,
+                    self.two_electron_box):
+            layout.addWidget(box)
         layout.addStretch(1)
         self._slice_timer = QTimer(self)
         self._slice_timer.setSingleShot(True)
@@ -256,6 +259,7 @@ class ViewControls(QWidget):
     def show_state(self, state: ViewState) -> None:
         """Display ``state`` with every widget's signals blocked (no echo)."""
         self._state = state
+        self.show_groups_for(state.view)
         widgets: list[QWidget] = [
             self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
@@ -310,6 +314,14 @@ class ViewControls(QWidget):
         self.two_map.blockSignals(False)
         for widget in widgets:
             widget.blockSignals(False)
+
+    def show_groups_for(self, view: str) -> None:
+        """Show only the settings the view uses (the slice plane serves the pair view too)."""
+        self.radial_box.setVisible(view == "radial")
+        self.slice_box.setVisible(view in ("slice", "pair"))
+        self.compare_box.setVisible(view in ("radial", "slice"))
+        self.pair_box.setVisible(view == "pair")
+        self.two_electron_box.setVisible(view == "two-electron")
 
     # -- widgets → state ------------------------------------------------------------
     def _emit_radial(self) -> None:

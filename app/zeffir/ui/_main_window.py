@@ -44,7 +44,7 @@ from zeffir.scene import (
     two_electron_scenes,
 )
 from zeffir.state import OrbitalChoice, Source, ViewState
-from zeffir.ui._about import show_about
+from zeffir.ui._about import show_about, show_help
 from zeffir.ui._atom_bar import AtomBar
 from zeffir.ui._controls import ViewControls
 from zeffir.ui._radial_view import RadialView
@@ -301,12 +301,12 @@ class MainWindow(QMainWindow):
         views_layout.setSpacing(2)
         views_layout.addWidget(self.banner)
         views_layout.addWidget(self.tabs, 1)
-        views_and_table = QSplitter(Qt.Orientation.Vertical)
+        self.views_and_table = views_and_table = QSplitter(Qt.Orientation.Vertical)
         views_and_table.addWidget(views_box)
         views_and_table.addWidget(table_box)
         views_and_table.setStretchFactor(0, 1)
         views_and_table.setSizes([760, 170])
-        body = QSplitter(Qt.Orientation.Horizontal)
+        self.body_splitter = body = QSplitter(Qt.Orientation.Horizontal)
         body.addWidget(scroll)
         body.addWidget(views_and_table)
         body.setStretchFactor(1, 1)
@@ -372,9 +372,11 @@ class MainWindow(QMainWindow):
         file_menu.addSeparator()
         self._add(file_menu, "&Quit", self.close, QKeySequence.StandardKey.Quit)
         view_menu = self.menuBar().addMenu("&View")
-        self._add(view_menu, "&Radial curves", lambda: self.tabs.setCurrentIndex(0),
-                  QKeySequence("Ctrl+1"))
-        self._add(view_menu, "&Slice", lambda: self.tabs.setCurrentIndex(1), QKeySequence("Ctrl+2"))
+        for index, text in enumerate(("&Radial curves", "&Slice", "&Pair densities",
+                                      "&Two electrons")):
+            self._add(view_menu, text, lambda i=index: self.tabs.setCurrentIndex(i),
+                      QKeySequence(f"Ctrl+{index + 1}"))
+        view_menu.addSeparator()
         self.compare_action = self._add(view_menu, "Side by &side", self._toggle_compare,
                                         QKeySequence("Ctrl+D"))
         self.compare_action.setCheckable(True)
@@ -388,6 +390,7 @@ class MainWindow(QMainWindow):
             action.triggered.connect(lambda _c=False, k=key: self.model.update(length_unit=k))
             self.unit_actions[key] = action
         help_menu = self.menuBar().addMenu("&Help")
+        self._add(help_menu, "&Help", lambda: show_help(self), QKeySequence(Qt.Key.Key_F1))
         self._add(help_menu, "&About Zeffir and model limits", lambda: show_about(self))
         self._refresh_recent()
 
@@ -564,6 +567,7 @@ class MainWindow(QMainWindow):
             self.statusBar().showMessage(f"Contour lines not drawn: {message}", 8000)
             return
         self._trouble[key] = f"failed: {message}"
+        self.statusBar().clearMessage()  # the last progress line would read as current
         self._banner_timer.stop()
         self._refresh_banner()
 
@@ -709,8 +713,19 @@ class MainWindow(QMainWindow):
         return True
 
     # -- Qt overrides ---------------------------------------------------------------
+    def restore_layout(self) -> None:
+        """Restore the window geometry and splitter positions saved when it last closed."""
+        for key, restore in (("geometry", self.restoreGeometry),
+                             ("splitter_body", self.body_splitter.restoreState),
+                             ("splitter_views", self.views_and_table.restoreState)):
+            value = self.settings.value(key)
+            if value is not None:
+                restore(value)
+
     def closeEvent(self, event: QCloseEvent) -> None:
         self.settings.setValue("geometry", self.saveGeometry())
+        self.settings.setValue("splitter_body", self.body_splitter.saveState())
+        self.settings.setValue("splitter_views", self.views_and_table.saveState())
         self.worker.shutdown()
         super().closeEvent(event)
 

@@ -161,7 +161,7 @@ class RadialView(QWidget):
         self._plot_widget.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._plot.getViewBox().sigResized.connect(self._on_resized)
         self._plot_widget.viewport().installEventFilter(self)
-        self.setMinimumSize(360, 320)
+        self.setMinimumSize(240, 240)
         self._show_message()
 
     # -- drawing -------------------------------------------------------------------------

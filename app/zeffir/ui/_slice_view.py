@@ -166,7 +166,7 @@ class SliceView(QWidget):
         self._graphics.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._graphics.scene().sigMouseClicked.connect(self._on_mouse_clicked)
         self._graphics.viewport().installEventFilter(self)
-        self.setMinimumSize(360, 360)
+        self.setMinimumSize(240, 240)
         self._show_message()
 
     def _style_colour_bar(self) -> None:
