@@ -94,9 +94,31 @@ def _contour_job(scenes: list[Any]) -> Any:
     return [scene.with_contours() for scene in scenes]
 
 
-def _table_job(source: Source) -> Any:
+def _table_job(source: Source, right: Source | None = None, unit: str = "bohr") -> Any:
+    """Rows, energy lines and notes of the main source (and the comparison's, if any)."""
+    from zeffir.core import ZeffirError
+
     orbitals = orbitals_for(source)
-    return source, subshell_table(orbitals), _energy_summary(source, orbitals)
+    rows = subshell_table(orbitals)
+    lines = [_energy_summary(source, orbitals, unit)]
+    notes = _notes_of(orbitals, rows)
+    if right is not None and right != source:
+        try:
+            other = orbitals_for(right)
+        except ZeffirError as error:
+            lines.append(f"versus {_source_text(right)}: failed: {error}")
+        else:
+            lines.append(f"versus: {_energy_summary(right, other, unit)}")
+            notes += [f"versus ({right.spec}, {right.model}): {note}"
+                      for note in _notes_of(other, subshell_table(other))]
+    return source, rows, "\n".join(lines), notes
+
+
+def _notes_of(orbitals: Any, rows: Any) -> list[str]:
+    """Set-wide notes first (where the configuration comes from, the model's), then per row."""
+    notes = [orbitals.configuration.origin_note, *orbitals.notes]
+    notes += [f"{row.label}: {note}" for row in rows for note in row.notes]
+    return list(dict.fromkeys(notes))
 
 
 def describe(state: ViewState) -> str:
@@ -115,9 +137,15 @@ def _source_text(source: Source) -> str:
     return f"{source.spec} — {title}"
 
 
-def _energy_summary(source: Source, orbitals: Any) -> str:
-    """One line under the table: total energy, and E_corr for Hartree–Fock where published."""
+def _energy_summary(source: Source, orbitals: Any, unit: str = "bohr") -> str:
+    """One line under the table: total energy, and E_corr for Hartree–Fock where published.
+
+    Energies in hartree, or in eV when the display unit is Å (and eV).
+    """
+    from zeffir.core import EV_PER_HARTREE
     from zeffir.core.energy import exact_energy
+
+    scale, name, digits = (EV_PER_HARTREE, "eV", 4) if unit == "angstrom" else (1.0, "Eh", 6)
 
     configuration = orbitals.configuration
     where = ("" if configuration.origin == "typed"
@@ -125,7 +153,8 @@ def _energy_summary(source: Source, orbitals: Any) -> str:
     total = orbitals.total_energy
     if total is None:
         return f"{configuration.spec}{where}: the {source.model} model defines no total energy"
-    text = f"{configuration.spec}{where} ({source.model}): total energy {total:.6f} Eh"
+    text = (f"{configuration.spec}{where} ({source.model}): total energy "
+            f"{total * scale:.{digits}f} {name}")
     if orbitals.virial_ratio is not None:
         text += f" (−V/T = {orbitals.virial_ratio:.8f})"
     if source.model == "hartree-fock":
@@ -133,8 +162,8 @@ def _energy_summary(source: Source, orbitals: Any) -> str:
         if found is None:
             text += "; no published exact energy for this configuration"
         else:
-            text += (f"; exact non-relativistic {found[0]:.6f} Eh ({found[1]}); "
-                     f"correlation energy {found[0] - total:.5f} Eh")
+            text += (f"; exact non-relativistic {found[0] * scale:.{digits}f} {name} ({found[1]}); "
+                     f"correlation energy {(found[0] - total) * scale:.{digits - 1}f} {name}")
     elif source.model == "hartree-fock-average":
         text += "; the average over the configuration's terms, not one state (no correlation energy)"
     return text
@@ -280,6 +309,20 @@ class MainWindow(QMainWindow):
         table_layout.setSpacing(0)
         table_layout.addWidget(self.table, 1)
         table_layout.addWidget(self.energy_line)
+        self.notes_area = QLabel()
+        self.notes_area.setObjectName("notesArea")
+        self.notes_area.setWordWrap(True)
+        self.notes_area.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        self.notes_area.setStyleSheet("color: #444;")
+        self.notes_area.setContentsMargins(6, 0, 6, 2)
+        self.notes_area.setToolTip("Where the configuration comes from, and what the model notes "
+                                   "about it (fallbacks, the term solved, extensions of its rules)")
+        notes_scroll = QScrollArea()
+        notes_scroll.setWidget(self.notes_area)
+        notes_scroll.setWidgetResizable(True)
+        notes_scroll.setFrameShape(QFrame.Shape.NoFrame)
+        notes_scroll.setMaximumHeight(64)
+        table_layout.addWidget(notes_scroll)
         self.banner = QFrame()
         self.banner.setObjectName("staleBanner")
         self.banner.setStyleSheet("#staleBanner { background: #fff3cd; border: 1px solid #d9a400; }")
@@ -405,7 +448,8 @@ class MainWindow(QMainWindow):
     @Slot(object, object)
     def _on_state_changed(self, new: ViewState, old: ViewState) -> None:
         self._show_state(new)
-        if new.left != old.left or new.length_unit != old.length_unit:
+        if (new.left, new.length_unit, _table_versus(new)) != (
+                old.left, old.length_unit, _table_versus(old)):
             self._request_table(new.left)
         drawn = self._drawn.get(new.view)
         if new.view != old.view or _view_inputs(new) != _view_inputs(old):
@@ -419,6 +463,7 @@ class MainWindow(QMainWindow):
     def _show_state(self, state: ViewState) -> None:
         self.atom_bar.show_state(state.left, state.orbital)
         self.controls.show_state(state)
+        self.table.select_subshell(state.orbital.subshell)
         self.tabs.blockSignals(True)
         self.tabs.setCurrentIndex(_VIEWS.index(state.view))
         self.tabs.blockSignals(False)
@@ -440,7 +485,9 @@ class MainWindow(QMainWindow):
     def _request_table(self, source: Source) -> None:
         self._table_asked = source
         self._trouble.pop("table", None)
-        self.worker.request("table", lambda s=source: _table_job(s))
+        state = self.model.state
+        versus, unit = _table_versus(state), state.length_unit
+        self.worker.request("table", lambda: _table_job(source, versus, unit))
 
     def _request_view(self, state: ViewState) -> None:
         job = _JOBS[state.view]
@@ -523,11 +570,12 @@ class MainWindow(QMainWindow):
     def _on_result(self, key: str, result: Any) -> None:
         state = self.model.state
         if key == "table":
-            source, rows, summary = result
+            source, rows, summary, notes = result
             self._table_drawn = source
             self._trouble.pop("table", None)
             self.table.show_rows(rows, state.orbital.subshell, state.length_unit)
             self.energy_line.setText(summary)
+            self.notes_area.setText("\n".join(f"• {note}" for note in notes))
             self._refresh_banner()
             return
         if key == "export":
@@ -728,6 +776,11 @@ class MainWindow(QMainWindow):
         self.settings.setValue("splitter_views", self.views_and_table.saveState())
         self.worker.shutdown()
         super().closeEvent(event)
+
+
+def _table_versus(state: ViewState) -> Source | None:
+    """The comparison's source, when the table should report it too."""
+    return state.compare.right if state.compare.enabled else None
 
 
 def _name_inputs_by_label(root: QWidget) -> None:

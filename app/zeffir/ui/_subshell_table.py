@@ -89,6 +89,16 @@ class SubshellTable(QTableWidget):
                 self.selectRow(i)
         self.blockSignals(False)
 
+    def select_subshell(self, label: str) -> None:
+        """Select the row of ``label`` (if shown) without emitting ``subshell_selected``."""
+        for i, row in enumerate(self._rows):
+            if row.label == label:
+                if self.currentRow() != i or not self.selectedIndexes():
+                    self.blockSignals(True)
+                    self.selectRow(i)
+                    self.blockSignals(False)
+                return
+
     def as_text(self) -> str:
         """The table as tab-separated text with a header row (what Copy puts on the clipboard)."""
         headers = [self.horizontalHeaderItem(c).text() for c in range(self.columnCount())]

@@ -1,0 +1,56 @@
+"""The table side of the window: notes, the comparison's energy, units, selection."""
+
+from __future__ import annotations
+
+import pytest
+from PySide6.QtCore import QSettings
+
+from zeffir.core import EV_PER_HARTREE
+from zeffir.state import CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
+from zeffir.ui import MainWindow
+
+
+@pytest.fixture
+def window(qtbot, tmp_path):
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+    state = ViewState(left=Source("Fe3+", "clementi"), orbital=OrbitalChoice("3d"),
+                      slice=SliceSettings(resolution=48))
+    win = MainWindow(state, synchronous=True, settings=settings)
+    qtbot.addWidget(win)
+    return win
+
+
+def test_set_wide_notes_reach_the_window(window):
+    notes = window.notes_area.text()
+    assert "observed ground configuration of Fe3+" in notes
+    # Clementi–Raimondi exponents are the neutral atom's: the model says so for an ion.
+    assert "neutral" in notes
+
+
+def test_the_hartree_fock_term_solved_is_shown(window):
+    window.apply(window.state.with_changes(left=Source("C", "hartree-fock")))
+    assert "3P" in window.notes_area.text()
+
+
+def test_a_comparison_shows_both_energies(window):
+    window.apply(window.state.with_changes(
+        left=Source("Ne", "hartree-fock"), compare=CompareSettings(True, Source("Ne", "variational"))))
+    lines = window.energy_line.text().splitlines()
+    assert len(lines) == 2
+    assert "hartree-fock" in lines[0] and lines[1].startswith("versus: Ne") and "variational" in lines[1]
+
+
+def test_the_energy_line_follows_the_units(window):
+    window.apply(window.state.with_changes(left=Source("Ne", "hartree-fock")))
+    assert " Eh" in window.energy_line.text()
+    window.apply(window.state.with_changes(length_unit="angstrom"))
+    text = window.energy_line.text()
+    assert " eV" in text and " Eh" not in text
+    assert f"{-128.547098 * EV_PER_HARTREE:.4f} eV" in text  # Ne Hartree–Fock energy in eV
+
+
+def test_the_table_selection_follows_the_orbital_chooser(window):
+    window.apply(window.state.with_changes(orbital=OrbitalChoice("3p")))
+    rows = {index.row() for index in window.table.selectedIndexes()}
+    assert [window.table.item(row, 0).text().rstrip(" *") for row in rows] == ["3p"]
+    assert window.state.orbital.subshell == "3p"  # and selecting did not echo a change
