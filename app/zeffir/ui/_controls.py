@@ -19,7 +19,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.core import ZeffirError, parse_spec
+from zeffir.core import ANGSTROM_PER_BOHR, ZeffirError, parse_spec
 from zeffir.scene import QUANTITIES
 from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, PairSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
@@ -31,6 +31,12 @@ _RADIAL_CHOICES = (("D", "Radial distribution r²R²"), ("R", "Radial function R
                    ("P", "P(r) = rR(r)"), ("Q", "Cumulative charge Q(r)"))
 _SLICE_CHOICES = (("psi", "Orbital ψ (signed)"), ("psi2", "Orbital density |ψ|²"),
                   ("density", "Total density ρ"))
+
+
+# Ranges of the length boxes, in bohr (shown converted when the unit is Å).
+_OFFSET_RANGE = (-100.0, 100.0)
+_EXTENT_RANGE = (0.05, 200.0)
+_REFERENCE_RANGE = (-200.0, 200.0)
 
 
 def _shrinkable(box: QComboBox, characters: int = 14) -> QComboBox:
@@ -80,6 +86,7 @@ class ViewControls(QWidget):
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self._state = ViewState()
+        self._length_scale = 1.0
         layout = QVBoxLayout(self)
         layout.setContentsMargins(4, 4, 4, 4)
         layout.addWidget(self._build_units())
@@ -142,9 +149,9 @@ class ViewControls(QWidget):
         normal_layout.setContentsMargins(0, 0, 0, 0)
         for spin in self.normal:
             normal_layout.addWidget(spin)
-        self.offset = _spin(-100.0, 100.0, 0.1, 3, " bohr")
+        self.offset = _spin(*_OFFSET_RANGE, 0.1, 3, " bohr")
         self.offset.setToolTip("Signed distance of the plane from the nucleus along its normal")
-        self.extent = _spin(0.05, 200.0, 0.5, 2, " bohr")
+        self.extent = _spin(*_EXTENT_RANGE, 0.5, 2, " bohr")
         self.extent.setToolTip("Half-width of the square window")
         self.resolution = QSpinBox()
         self.resolution.setRange(16, MAX_VIEW_RESOLUTION)
@@ -208,12 +215,12 @@ class ViewControls(QWidget):
         hint = QLabel("Click a panel to place the reference electron on the plane.")
         hint.setWordWrap(True)
         hint.setStyleSheet("color: #555;")
-        self.reference = [_spin(-200.0, 200.0, 0.1, 3, "") for _ in range(3)]
+        self.reference = [_spin(*_REFERENCE_RANGE, 0.1, 3, " bohr") for _ in range(3)]
         reference_row = QWidget()
         reference_layout = QHBoxLayout(reference_row)
         reference_layout.setContentsMargins(0, 0, 0, 0)
         for spin, axis in zip(self.reference, "xyz", strict=True):
-            spin.setToolTip(f"{axis} of the reference electron r₁ (bohr)")
+            spin.setToolTip(f"{axis} of the reference electron r₁")
             reference_layout.addWidget(spin)
         self.spin_box = QComboBox()
         self.spin_box.addItem("↑ (spin up, α)", "up")
@@ -229,7 +236,7 @@ class ViewControls(QWidget):
         self.determinant_message.setWordWrap(True)
         self.determinant_message.setStyleSheet("color: #b00020;")
         form.addRow(hint)
-        form.addRow("r₁ / bohr", reference_row)
+        form.addRow("r₁", reference_row)
         form.addRow("Spin", self.spin_box)
         form.addRow("Determinant", self.determinant)
         form.addRow(self.determinant_message)
@@ -284,8 +291,9 @@ class ViewControls(QWidget):
         for spin, value in zip(self.normal, s.normal, strict=True):
             spin.setValue(value)
             spin.setEnabled(s.plane == "custom")
-        self.offset.setValue(s.offset)
-        self.extent.setValue(s.extent)
+        self._show_length_unit(state.length_unit)
+        self.offset.setValue(s.offset * self._length_scale)
+        self.extent.setValue(s.extent * self._length_scale)
         self.resolution.setValue(s.resolution)
         self.contours.setValue(s.contours)
         self.log_scale.setChecked(s.log_scale)
@@ -305,7 +313,7 @@ class ViewControls(QWidget):
         self.spin_box.blockSignals(False)
         for spin, value in zip(self.reference, state.pair.reference, strict=True):
             spin.blockSignals(True)
-            spin.setValue(value)
+            spin.setValue(value * self._length_scale)
             spin.blockSignals(False)
         if not self.determinant_message.text():
             self.determinant.setText(state.pair.determinant)
@@ -314,6 +322,29 @@ class ViewControls(QWidget):
         self.two_map.blockSignals(False)
         for widget in widgets:
             widget.blockSignals(False)
+
+    def _show_length_unit(self, unit: str) -> None:
+        """Lengths in the chosen unit: the state keeps bohr, the boxes show bohr or Å."""
+        scale = ANGSTROM_PER_BOHR if unit == "angstrom" else 1.0
+        suffix = " Å" if unit == "angstrom" else " bohr"
+        self._length_scale = scale
+        for spin, (low, high) in ((self.offset, _OFFSET_RANGE), (self.extent, _EXTENT_RANGE),
+                                  *((box, _REFERENCE_RANGE) for box in self.reference)):
+            was = spin.signalsBlocked()
+            spin.blockSignals(True)
+            spin.setRange(low * scale, high * scale)
+            spin.setSuffix(suffix)
+            spin.blockSignals(was)
+
+    def _bohr(self, spin: QDoubleSpinBox, current: float) -> float:
+        """The box's value in bohr; the stored value itself while the user left it alone.
+
+        Rounding to the box's decimals in Å must not move a value the user did not edit.
+        """
+        shown = round(current * self._length_scale, spin.decimals())
+        if abs(spin.value() - shown) < 0.5 * 10.0 ** -spin.decimals():
+            return current
+        return spin.value() / self._length_scale
 
     def show_groups_for(self, view: str) -> None:
         """Show only the settings the view uses (the slice plane serves the pair view too)."""
@@ -345,8 +376,8 @@ class ViewControls(QWidget):
             quantity=str(self.slice_quantity.currentData()),
             plane=str(self.plane.currentData()),
             normal=normal,
-            offset=self.offset.value(),
-            extent=self.extent.value(),
+            offset=self._bohr(self.offset, self._state.slice.offset),
+            extent=self._bohr(self.extent, self._state.slice.extent),
             resolution=self.resolution.value(),
             contours=self.contours.value(),
             log_scale=self.log_scale.isChecked(),
@@ -365,7 +396,8 @@ class ViewControls(QWidget):
                 return
         self.determinant_message.clear()
         self.pair_edited.emit(PairSettings(
-            reference=tuple(spin.value() for spin in self.reference),  # type: ignore[arg-type]
+            reference=tuple(self._bohr(spin, value) for spin, value in  # type: ignore[arg-type]
+                            zip(self.reference, self._state.pair.reference, strict=True)),
             spin=str(self.spin_box.currentData()),  # type: ignore[arg-type]
             determinant=text,
         ))

@@ -1,0 +1,50 @@
+"""One unit system: with Å chosen, every length box shows Å and the state keeps bohr."""
+
+from __future__ import annotations
+
+import pytest
+from PySide6.QtCore import QSettings
+
+from zeffir.core import ANGSTROM_PER_BOHR
+from zeffir.state import OrbitalChoice, PairSettings, SliceSettings, Source, ViewState
+from zeffir.ui import MainWindow
+
+
+@pytest.fixture
+def window(qtbot, tmp_path):
+    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+    state = ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"), view="slice",
+                      slice=SliceSettings(resolution=48, offset=0.5, extent=6.0),
+                      pair=PairSettings(reference=(0.0, 0.0, 1.1)))
+    win = MainWindow(state, synchronous=True, settings=settings)
+    qtbot.addWidget(win)
+    return win
+
+
+def test_length_boxes_follow_the_unit(window):
+    controls = window.controls
+    boxes = [controls.offset, controls.extent, *controls.reference]
+    assert all(box.suffix() == " bohr" for box in boxes)
+    window.apply(window.state.with_changes(length_unit="angstrom"))
+    assert all(box.suffix() == " Å" for box in boxes)
+    assert controls.offset.value() == pytest.approx(0.5 * ANGSTROM_PER_BOHR, abs=1e-3)
+    assert controls.extent.value() == pytest.approx(6.0 * ANGSTROM_PER_BOHR, abs=1e-2)
+    assert controls.reference[2].value() == pytest.approx(1.1 * ANGSTROM_PER_BOHR, abs=1e-3)
+    assert window.state.slice.extent == 6.0  # the state stays in bohr
+
+
+def test_an_edit_in_angstrom_is_stored_in_bohr(window):
+    window.apply(window.state.with_changes(length_unit="angstrom"))
+    window.controls.extent.setValue(2.0)
+    window.controls._emit_slice()
+    assert window.state.slice.extent == pytest.approx(2.0 / ANGSTROM_PER_BOHR)
+    window.controls.reference[0].setValue(0.5)
+    assert window.state.pair.reference[0] == pytest.approx(0.5 / ANGSTROM_PER_BOHR)
+
+
+def test_editing_another_box_does_not_move_lengths_by_rounding(window):
+    window.apply(window.state.with_changes(length_unit="angstrom"))
+    window.controls.contours.setValue(3)
+    window.controls._emit_slice()
+    assert window.state.slice.contours == 3
+    assert window.state.slice.offset == 0.5 and window.state.slice.extent == 6.0
