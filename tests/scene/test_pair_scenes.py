@@ -77,3 +77,43 @@ def test_two_electrons_in_one_orbital_are_refused_with_a_reason():
     state = ViewState(left=Source("He", "hydrogenic"), view="two-electron").validated()
     with pytest.raises(Exception, match="only the singlet exists"):
         two_electron_scenes(state)
+
+
+def _nodal_points(scene):
+    lines = scene.with_contours().contours.zero
+    return lines[np.isfinite(lines[:, 0])]
+
+
+@pytest.mark.parametrize("resolution", [255, 256])
+@pytest.mark.parametrize("spec", ["He 1s1 2p1", "Li+ 1s1 2s1"])
+def test_collinear_triplet_draws_its_nodal_line_where_the_electrons_meet(spec, resolution):
+    state = ViewState(left=Source(spec, "hydrogenic"), view="two-electron",
+                      two_electron=TwoElectronSettings("collinear", 10.0, resolution)).validated()
+    scenes = two_electron_scenes(state)
+    s = scenes.right.coordinates
+    pixel = float(s[1] - s[0])  # up to CONTOUR_POINTS per side, lines are traced on this grid
+    points = _nodal_points(scenes.right)
+    # ψ− is exactly 0 on every grid point of s1 = s2; the line runs through them.
+    on_diagonal = np.sort(points[np.abs(points[:, 0] - points[:, 1]) <= 1e-9 * s[-1], 0])
+    assert on_diagonal.size, "the triplet's s1 = s2 line vanished"
+    ends = np.concatenate(([s[0]], on_diagonal, [s[-1]]))
+    assert np.diff(ends).max() <= pixel * (1 + 1e-9)
+
+
+@pytest.mark.parametrize("resolution", [255, 256])
+def test_collinear_singlet_and_difference_of_1s_2p_draw_their_nodal_lines(resolution):
+    # 1s and 2pz (odd in s) are orthogonal, so ψ+ ∝ a(s1)b(s2) + b(s1)a(s2) vanishes on
+    # s1 = −s2, and ψ− − ψ+ ∝ −b(s1)a(s2) on s1 = 0 (the 2pz node).
+    state = ViewState(left=Source("He 1s1 2p1", "hydrogenic"), view="two-electron",
+                      two_electron=TwoElectronSettings("collinear", 10.0, resolution)).validated()
+    scenes = two_electron_scenes(state)
+    s = scenes.left.coordinates
+    pixel = float(s[1] - s[0])
+    singlet = _nodal_points(scenes.left)
+    difference = _nodal_points(scenes.difference)
+    assert singlet.size and difference.size
+    np.testing.assert_allclose(singlet[:, 0], -singlet[:, 1], rtol=0, atol=0.5 * pixel)
+    np.testing.assert_allclose(difference[:, 0], 0.0, rtol=0, atol=1e-9 * s[-1])
+    for along in (singlet[:, 0], difference[:, 1]):
+        ends = np.concatenate(([s[0]], np.sort(along), [s[-1]]))
+        assert np.diff(ends).max() <= pixel * (1 + 1e-9)

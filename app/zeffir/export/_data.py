@@ -52,10 +52,15 @@ def write_data(target: RadialScene | SliceScene | RadialComparison | SliceCompar
         column per curve; comparison columns are prefixed ``left:``, ``right:`` and
         ``difference:``.
         ``.npz`` (slice): arrays ``values`` (the quantity in display units, ``[j, i]`` at
-        (u_i, v_j)), ``image`` (what is mapped to colours), ``u`` (grid coordinates; v = u)
-        and ``metadata`` (a JSON string); a comparison adds ``left_values``,
-        ``right_values``, ``difference`` (= right − left), ``right_image`` and
-        ``difference_image``, while ``values`` and ``image`` are the left panel's.
+        (u_i, v_j)), ``image`` (what is mapped to colours), ``u`` (grid coordinates; v = u),
+        ``nodal_u``, ``nodal_v`` (the nodal lines drawn, ψ = 0 of a signed quantity:
+        polylines in the plane's coordinates and the file's length unit, NaN between
+        pieces; empty when none is drawn) and ``metadata`` (a JSON string); a
+        comparison adds ``left_values``, ``right_values``, ``difference``
+        (= right − left), ``right_image``, ``difference_image`` and the nodal lines
+        of each panel (``left_nodal_u``, ``right_nodal_u``, ``difference_nodal_u``
+        and their ``_v``), while ``values``, ``image`` and ``nodal_u``/``nodal_v``
+        are the left panel's.
 
     Returns
     -------
@@ -156,17 +161,24 @@ def _shared_x(panels: list[tuple[str, RadialScene]]) -> np.ndarray:
 
 
 def _slice_metadata(scene: SliceScene) -> dict[str, Any]:
-    quantity = QUANTITIES[scene.quantity]
     length = "bohr" if scene.length_unit == "bohr" else "Å"
-    value_unit = unit_text(scene.length_unit, quantity.length_power)
+    quantity = QUANTITIES.get(scene.quantity)
+    if quantity is not None:
+        name, formula = quantity.name, quantity.formula
+        value_unit = unit_text(scene.length_unit, quantity.length_power)
+    else:
+        # The two-electron maps are not slice quantities: their colour bar label
+        # ("symbol / unit") and plane text are what names them on screen.
+        symbol, _, value_unit = scene.value_label.rpartition(" / ")
+        name, formula = f"two-electron map: {scene.plane_text}", symbol
     return {
         "title": scene.title,
         "spec": scene.spec,
         "model": scene.model,
         "orbital": scene.orbital,
         "quantity": scene.quantity,
-        "quantity_name": quantity.name,
-        "formula": quantity.formula,
+        "quantity_name": name,
+        "formula": formula,
         "plane_text": scene.plane_text,
         "axis_labels": list(scene.axis_labels),
         "value_label": scene.value_label,
@@ -188,10 +200,13 @@ def _slice_arrays(target: SliceScene | SliceComparison) -> dict[str, Any]:
         "constants": f"{CODATA_EDITION} (via scipy.constants)",
         "caution": CAUTION,
         "layout": "values[j, i] is at (u[i], v[j]); v = u",
+        "nodal_lines": "nodal_u, nodal_v: the nodal lines drawn (zero contour of a signed quantity) "
+                       "as (u, v) points in the unit of u; a NaN in both separates polylines; "
+                       "empty when none is drawn",
     }
     if isinstance(target, SliceScene):
         metadata = {"kind": "zeffir-slice", **common, **_slice_metadata(target)}
-        arrays = {"values": target.values, "image": target.image}
+        arrays = {"values": target.values, "image": target.image, **_nodal_arrays("", target)}
         coordinates = target.coordinates
     else:
         metadata = {
@@ -211,6 +226,10 @@ def _slice_arrays(target: SliceScene | SliceComparison) -> dict[str, Any]:
             "right_image": target.right.image,
             "difference": target.difference.values,
             "difference_image": target.difference.image,
+            **_nodal_arrays("", target.left),
+            **_nodal_arrays("left_", target.left),
+            **_nodal_arrays("right_", target.right),
+            **_nodal_arrays("difference_", target.difference),
         }
         coordinates = target.left.coordinates
     text = json.dumps(metadata, ensure_ascii=False, indent=1)
@@ -218,3 +237,10 @@ def _slice_arrays(target: SliceScene | SliceComparison) -> dict[str, Any]:
             "metadata": np.asarray(text)}
 
 
+def _nodal_arrays(prefix: str, scene: SliceScene) -> dict[str, np.ndarray]:
+    """``{prefix}nodal_u`` and ``{prefix}nodal_v``: the panel's nodal lines as drawn."""
+    # The very polylines the view draws (traced once, reused), so a script sees the
+    # nodes on screen; a scene exported before its contours were traced traces them here.
+    lines = scene.nodal_lines()
+    return {f"{prefix}nodal_u": np.ascontiguousarray(lines[:, 0]),
+            f"{prefix}nodal_v": np.ascontiguousarray(lines[:, 1])}

@@ -11,10 +11,13 @@ from dataclasses import dataclass
 from typing import Final
 
 import numpy as np
+import numpy.typing as npt
 
 from zeffir.core.orbitals import FloatArray
 
-__all__ = ["CONTOUR_POINTS", "ContourPaths", "trace_contours"]
+__all__ = ["CONTOUR_POINTS", "ContourPaths", "stray_zeros", "trace_contours"]
+
+BoolArray = npt.NDArray[np.bool_]
 
 #: Contours are traced on at most this many points per side (the image is subsampled).
 CONTOUR_POINTS: Final[int] = 256
@@ -42,6 +45,56 @@ class ContourPaths:
     levels: tuple[float, ...]
 
 
+def stray_zeros(values: FloatArray) -> BoolArray:
+    """Exact zeros of ``values`` that do not lie between opposite signs.
+
+    Parameters
+    ----------
+    values : ndarray, shape (k, m)
+        A signed field on a grid (ψ, a two-electron map, a difference).
+
+    Returns
+    -------
+    ndarray of bool, shape (k, m)
+        True where ``values`` is exactly 0 (either sign of zero) and its 3 × 3
+        neighbourhood does not hold both a positive and a negative value.
+
+    Notes
+    -----
+    Exact zeros arise in two ways. Where an exponential underflows, or beyond a
+    tabulated radial range, ψ is 0 over a whole region; tracing level 0 there would
+    draw the region's edge, which is no node. Where a nodal set passes through grid
+    points (a nodal plane at an odd resolution, the line s₁ = s₂ of a triplet),
+    ψ is 0 on a line of points with opposite signs either side; masking those
+    points hides the node, because no cell then sees the sign change. The two
+    differ locally: a zero on a node has both signs among its eight neighbours
+    (the diagonal ones matter where two nodal lines cross on a grid point), a zero
+    of underflow has at most one. Masking only the zeros of underflow keeps every
+    node and draws no underflow edge. A kept zero stays exactly 0, so the traced line passes
+    through it (contourpy counts 0 with the negative side).
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> z = np.array([[1.0, 1.0, 0.0], [0.0, 0.0, 0.0], [-1.0, -1.0, 0.0]])
+    >>> stray_zeros(z).astype(int).tolist()
+    [[0, 0, 1], [0, 0, 0], [0, 0, 1]]
+    """
+    field = np.asarray(values, dtype=float)
+    positive = np.pad(field > 0.0, 1)
+    negative = np.pad(field < 0.0, 1)
+    rows, columns = field.shape
+    near_positive = np.zeros(field.shape, dtype=bool)
+    near_negative = np.zeros(field.shape, dtype=bool)
+    # Nine shifted views (a 3 × 3 dilation) rather than a loop over the grid.
+    for dj in range(3):
+        for di in range(3):
+            near_positive |= positive[dj:dj + rows, di:di + columns]
+            near_negative |= negative[dj:dj + rows, di:di + columns]
+    zero: BoolArray = field == 0.0  # -0.0 too
+    return zero & ~(near_positive & near_negative)
+
+
 def _join(pieces: list[FloatArray]) -> FloatArray:
     if not pieces:
         return np.empty((0, 2))
@@ -64,7 +117,8 @@ def trace_contours(image: FloatArray, coordinates: FloatArray, levels: tuple[flo
     signed : bool
         Negative levels go to the dashed group.
     zero_field : ndarray, optional
-        Field whose level 0 gives the nodal lines (exact zeros masked as NaN).
+        Field whose level 0 gives the nodal lines, with the exact zeros that are
+        not on a node masked as NaN (see :func:`stray_zeros`).
     """
     import contourpy
 

@@ -208,6 +208,9 @@ def two_electron_scenes(state: ViewState) -> TwoElectronScenes:
         signed = False
         words = "radial pair distribution (angles integrated)"
     else:
+        # One grid for both axes puts s₁ = s₂ on grid points, where the triplet is
+        # exactly 0 with opposite signs either side; the nodal tracing keeps such
+        # zeros (see SliceScene.zero_contour_field), so that line is drawn too.
         s = np.linspace(-top, top, k)
         maps = [np.real(st.collinear_map(s, s)).T * length_factor(unit, -3.0) for st in (singlet, triplet)]
         coordinates = s * scale

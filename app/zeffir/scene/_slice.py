@@ -9,7 +9,7 @@ import numpy as np
 from zeffir.core import Plane, density_on_plane, orbital_density_on_plane, orbital_on_plane
 from zeffir.core.orbitals import FloatArray, real_label
 from zeffir.scene._build import orbitals_for
-from zeffir.scene._contours import ContourPaths, trace_contours
+from zeffir.scene._contours import ContourPaths, stray_zeros, trace_contours
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
 from zeffir.state import OrbitalChoice, SliceSettings, Source
 
@@ -66,13 +66,29 @@ class SliceScene:
         return replace(self, contours=paths)
 
     def zero_contour_field(self) -> FloatArray:
-        """``image`` with exact zeros masked (NaN), for tracing nodal lines.
+        """``image`` with the exact zeros that are not on a node masked (NaN).
 
         Beyond a radial function's tabulated range, or where an exponential
         underflows, ψ is exactly 0; contouring level 0 there would draw lines that
-        are not nodes. Real nodes are where ψ changes sign, which this keeps.
+        are not nodes. A node can also pass exactly through grid points (a nodal
+        plane at an odd resolution, s₁ = s₂ of a triplet); those zeros have both
+        signs around them and are kept, or the node would vanish (see
+        :func:`~zeffir.scene._contours.stray_zeros`).
         """
-        return np.where(self.values == 0.0, np.nan, self.image)
+        return np.where(stray_zeros(self.values), np.nan, self.image)
+
+    def nodal_lines(self) -> FloatArray:
+        """The nodal lines as drawn: (u, v) rows in display units, NaN rows between pieces.
+
+        The traced ``contours.zero`` when the scene has them, else the zero level
+        traced the same way; shape (0, 2) for a quantity without a sign.
+        """
+        if not self.zero_contour:
+            return np.empty((0, 2))
+        if self.contours is not None:
+            return self.contours.zero
+        return trace_contours(self.image, self.coordinates, (), self.signed,
+                              self.zero_contour_field()).zero
 
 
 def plane_of(settings: SliceSettings) -> Plane:
