@@ -23,7 +23,7 @@ from zeffir.state import (
 def test_radial_distribution_curves_integrate_to_the_occupancies():
     scene = radial_scene(Source("Ne", "slater"), RadialSettings(r_limit=40.0))
     for curve in scene.curves:
-        expected = 10 if curve.subshell is None else int(curve.label.split("(")[1].rstrip(")"))
+        expected = 10 if curve.subshell is None else int(curve.label.split(", ")[1].split()[0])
         assert np.trapezoid(curve.y, curve.x) == pytest.approx(expected, rel=1e-4)
 
 
@@ -91,7 +91,9 @@ def test_radial_difference_uses_one_grid():
 def test_difference_titles_name_only_what_differs():
     from zeffir.scene._compare import difference_title
 
+    # Titles use the models' display names, as the menus do.
     assert difference_title("Gd", "hartree-fock", "Gd", "hartree-fock-average") == \
-        "Gd: hartree-fock-average − hartree-fock"
-    assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (slater)"
-    assert difference_title("Ne", "slater", "Ar", "clementi") == "(Ar, clementi) − (Ne, slater)"
+        "Gd: Hartree–Fock, average of configuration − restricted Hartree–Fock"
+    assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (Slater's rules)"
+    assert difference_title("Ne", "slater", "Ar", "clementi") == \
+        "(Ar, optimised exponents (Clementi–Raimondi)) − (Ne, Slater's rules)"

@@ -51,22 +51,22 @@ def test_curves_hold_exactly_the_scene_arrays(view, sodium):
 def test_highlighted_subshell_is_thicker_and_total_is_black(view, sodium):
     view.set_scene(sodium)
     styles = view.curve_styles()
-    width_3s, width_2p = styles["3s (1)"][1], styles["2p (6)"][1]
+    width_3s, width_2p = styles["3s, 1 electron"][1], styles["2p, 6 electrons"][1]
     assert width_3s > width_2p
     assert styles["total"][0] == TOTAL_COLOUR
     assert styles["total"][1] > width_2p
 
     view.set_scene(replace(sodium, highlight="2p"))
     styles = view.curve_styles()
-    assert styles["2p (6)"][1] == width_3s
-    assert styles["3s (1)"][1] == width_2p
+    assert styles["2p, 6 electrons"][1] == width_3s
+    assert styles["3s, 1 electron"][1] == width_2p
 
 
 def test_subshell_keeps_its_colour_across_atoms(view, sodium):
     view.set_scene(sodium)
-    colour_in_na = view.curve_styles()["2p (6)"][0]
+    colour_in_na = view.curve_styles()["2p, 6 electrons"][0]
     view.set_scene(radial_scene(Source("Ne", "slater"), RadialSettings(), "bohr", "2p"))
-    assert view.curve_styles()["2p (6)"][0] == colour_in_na
+    assert view.curve_styles()["2p, 6 electrons"][0] == colour_in_na
 
 
 def test_log_axis_drops_the_zero_radius(view, sodium):
@@ -119,11 +119,11 @@ def test_linked_cursor_moves_the_crosshair_and_reads_values(qtbot, view, sodium)
     with qtbot.assertNotEmitted(view.cursor_moved):
         view.show_cursor(4.0)
     assert view.cursor_position() == pytest.approx(4.0)
-    curve = next(c for c in sodium.curves if c.label == "3s (1)")
+    curve = next(c for c in sodium.curves if c.label == "3s, 1 electron")
     expected = float(np.interp(4.0, curve.x, curve.y))
     text = view.readout_text()
     assert "r = 4 bohr" in text
-    assert f"3s (1) {expected:.4g}" in text
+    assert f"3s, 1 electron {expected:.4g}" in text
     view.show_cursor(math.nan)
     assert view.cursor_position() is None
 

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import html
 import math
 from dataclasses import replace
 
@@ -129,7 +130,7 @@ def test_labels_and_tooltips_define_the_quantity(view, p_z):
     assert bar_axis.labelText == p_z.value_label
     assert QUANTITIES["psi"].formula in bar_axis.toolTip()
     title = view._title.text()
-    assert p_z.title in title and p_z.plane_text in title
+    assert html.escape(p_z.title) in title and p_z.plane_text in title
 
 
 def test_no_scene_shows_the_message(view, p_z):

@@ -12,7 +12,7 @@ from functools import lru_cache
 from zeffir.core import ComputationCancelled, OrbitalSet, ZeffirError, build
 from zeffir.state import Source
 
-__all__ = ["forget_failure", "known_failure", "orbitals_for"]
+__all__ = ["forget_failure", "known_failure", "model_title", "orbitals_for"]
 
 _MAX_FAILURES = 64
 _failures: dict[tuple[str, str], ZeffirError] = {}
@@ -49,6 +49,16 @@ def orbitals_for(source: Source) -> OrbitalSet:
             _failures.pop(next(iter(_failures)))
         _failures[key] = error
         raise
+
+
+def model_title(name: str) -> str:
+    """The model's display name (as the menus show it), or the name itself if unknown."""
+    from zeffir.core import get_model
+
+    try:
+        return get_model(name).title
+    except ZeffirError:
+        return name
 
 
 def known_failure(source: Source) -> ZeffirError | None:

@@ -6,7 +6,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from zeffir.scene._build import orbitals_for
+from zeffir.scene._build import model_title, orbitals_for
 from zeffir.scene._radial import Curve, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import SliceScene, colour_scale, contour_levels, slice_scene
 from zeffir.state import ViewState
@@ -15,7 +15,14 @@ __all__ = ["RadialComparison", "SliceComparison", "compare_radial", "compare_sli
 
 
 def difference_title(left_spec: str, left_model: str, right_spec: str, right_model: str) -> str:
-    """Title of a right − left panel, naming only what differs ("Gd: hartree-fock-average − hartree-fock")."""
+    """Title of a right − left panel, naming only what differs, with the models' display names.
+
+    Examples
+    --------
+    >>> difference_title("Ne", "slater", "Ar", "slater")
+    "Ar − Ne (Slater's rules)"
+    """
+    left_model, right_model = model_title(left_model), model_title(right_model)
     if left_spec == right_spec:
         return f"{left_spec}: {right_model} − {left_model}"
     if left_model == right_model:

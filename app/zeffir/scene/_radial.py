@@ -8,7 +8,7 @@ import numpy as np
 
 from zeffir.core import OrbitalSet, cumulative_charge
 from zeffir.core.orbitals import FloatArray
-from zeffir.scene._build import orbitals_for
+from zeffir.scene._build import model_title, orbitals_for
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
 from zeffir.state import RadialSettings, Source
 
@@ -108,7 +108,7 @@ def radial_scene(source: Source, settings: RadialSettings, length_unit: str = "b
         if settings.quantity in ("D", "Q"):
             total += y if settings.weighted else o.occupancy * y
         if settings.show_subshells or o.label == highlight:
-            curves.append(Curve(f"{o.label} ({o.occupancy})" if settings.weighted else o.label,
+            curves.append(Curve(_electrons(o.label, o.occupancy) if settings.weighted else o.label,
                                 o.label, r * x_scale, y * y_scale))
     if settings.show_total and settings.quantity in ("D", "Q"):
         if settings.quantity == "Q":
@@ -126,7 +126,7 @@ def radial_scene(source: Source, settings: RadialSettings, length_unit: str = "b
     weighting = "" if settings.quantity in ("R", "P") else (
         ", occupancy-weighted" if settings.weighted else ", per electron")
     return RadialScene(
-        title=f"{orbitals.configuration.spec} — {source.model}",
+        title=f"{orbitals.configuration.spec} — {model_title(source.model)}",
         spec=orbitals.configuration.spec,
         model=source.model,
         quantity=settings.quantity,
@@ -138,3 +138,8 @@ def radial_scene(source: Source, settings: RadialSettings, length_unit: str = "b
         markers=tuple(markers),
         highlight=highlight,
     )
+
+
+def _electrons(label: str, occupancy: int) -> str:
+    """Legend text of a weighted subshell curve: '3s, 1 electron', '2p, 6 electrons'."""
+    return f"{label}, {occupancy} electron{'' if occupancy == 1 else 's'}"
