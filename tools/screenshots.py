@@ -78,6 +78,9 @@ def main(out: Path) -> int:
     shot("14-slice-1280x720")
     model.update(left=Source("Be-", "hartree-fock"))
     shot("15-slice-failed-1280x720")
+    window.resize(1600, 1000)
+    model.update(left=Source("Ce+", "slater"), view="terms")
+    shot("16-terms-ce-plus")
     window.worker.shutdown()
     return 0
 

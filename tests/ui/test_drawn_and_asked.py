@@ -202,3 +202,13 @@ def test_the_pair_export_keeps_three_panels_without_the_difference(window, tmp_p
     images = [axes for axes in figure.axes if axes.images]
     assert len(images) == 3
     assert "hole" in images[2].get_title(loc="left").lower()
+
+
+def test_the_terms_view_lists_the_terms_of_the_asked_atom(window, tmp_path):
+    window.apply(window.state.with_changes(left=Source("Eu3+", "slater"), view="terms"))
+    assert window.tabs.currentWidget() is window.terms_view
+    assert window.drawn("terms").left.spec == "Eu3+" and window.problem() is None
+    assert window.terms_view.current_spec() == "Eu3+"
+    assert "7F0" in window.terms_view.as_text() or "⁷F" in window.terms_view.as_text()
+    assert window.export_figure(tmp_path / "terms.png") is False
+    assert not window.controls.radial_box.isVisibleTo(window.controls)

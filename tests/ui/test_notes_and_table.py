@@ -54,3 +54,20 @@ def test_the_table_selection_follows_the_orbital_chooser(window):
     rows = {index.row() for index in window.table.selectedIndexes()}
     assert [window.table.item(row, 0).text().rstrip(" *") for row in rows] == ["3p"]
     assert window.state.orbital.subshell == "3p"  # and selecting did not echo a change
+
+
+def test_further_radial_moments_are_optional_columns(window):
+    from zeffir.core import build, subshell_table
+
+    table = window.table
+    assert all(table.isColumnHidden(c) for c in (8, 9, 10))
+    assert "⟨r²⟩" not in table.as_text()
+    table.moments_action.trigger()
+    lines = table.as_text().splitlines()
+    header = lines[0].split("\t")
+    assert header[8:] == ["⟨r²⟩ / bohr²", "⟨1/r⟩ / bohr⁻¹", "⟨r⁻³⟩ / bohr⁻³"]
+    rows = {line.split("\t")[0]: line.split("\t") for line in lines[1:]}
+    expected = {row.label: row for row in subshell_table(build("Fe3+", "clementi"))}
+    assert float(rows["3d"][8]) == pytest.approx(expected["3d"].moments[2], abs=1e-4)
+    assert float(rows["3d"][10]) == pytest.approx(expected["3d"].moments[-3], abs=1e-4)
+    assert rows["1s"][10] == "—"  # ⟨r⁻³⟩ diverges for s

@@ -46,7 +46,7 @@ def test_the_side_panel_shows_only_the_current_views_settings(window, view, show
 def test_every_view_has_a_shortcut(window):
     actions = {action.shortcut().toString(): action for menu in window.menuBar().findChildren(
         type(window.menuBar().actions()[0].menu())) for action in menu.actions()}
-    for index, view in enumerate(("radial", "slice", "pair", "two-electron")):
+    for index, view in enumerate(("radial", "slice", "pair", "two-electron", "terms")):
         actions[QKeySequence(f"Ctrl+{index + 1}").toString()].trigger()
         assert window.state.view == view
     assert QKeySequence(Qt.Key.Key_F1).toString() in actions

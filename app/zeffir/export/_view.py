@@ -80,6 +80,9 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
         ``state`` is invalid (the message names the field).
     """
     target_path = Path(path)
+    if state.view == "terms":
+        raise ExportError(f"{target_path}: the Terms view is a table, not a figure; "
+                          "use 'zeffir terms SPEC --json' or copy the table")
     suffix = target_path.suffix.lower()
     if suffix not in EXPORT_FORMATS:
         raise ExportError(

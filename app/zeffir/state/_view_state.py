@@ -31,7 +31,7 @@ LengthUnit = Literal["bohr", "angstrom"]
 RadialQuantity = Literal["R", "P", "D", "Q"]
 SliceQuantity = Literal["psi", "psi2", "density"]
 PlaneName = Literal["xy", "xz", "yz", "custom"]
-ViewName = Literal["radial", "slice", "pair", "two-electron"]
+ViewName = Literal["radial", "slice", "pair", "two-electron", "terms"]
 SpinName = Literal["up", "down"]
 TwoElectronMap = Literal["radial", "collinear"]
 

@@ -39,7 +39,7 @@ def show_about(parent: QWidget | None) -> None:
 def help_html() -> str:
     """Short help: the spec syntax, the views and their shortcuts."""
     rows = [
-        ("Ctrl+1 … Ctrl+4", "Radial curves, Slice, Pair densities, Two electrons"),
+        ("Ctrl+1 … Ctrl+5", "Radial curves, Slice, Pair densities, Two electrons, Terms"),
         ("Ctrl+D", "side by side with a second model or atom"),
         ("Ctrl+E / Ctrl+Shift+E", "export the figure / the data of the current view"),
         ("Ctrl+O / Ctrl+S", "open / save a session (.zeffir)"),

@@ -51,6 +51,7 @@ from zeffir.ui._radial_view import RadialView
 from zeffir.ui._slice_view import SliceView
 from zeffir.ui._state_model import StateModel
 from zeffir.ui._subshell_table import SubshellTable
+from zeffir.ui._terms_view import TermsView
 from zeffir.ui._wheel_guard import guard_wheel
 from zeffir.ui._worker import SceneWorker
 
@@ -84,9 +85,15 @@ def _two_electron_job(state: ViewState) -> Any:
     return two_electron_scenes(state)
 
 
-_VIEWS = ("radial", "slice", "pair", "two-electron")
+def _terms_job(state: ViewState) -> Any:
+    from zeffir.ui._terms_view import terms_summary
+
+    return terms_summary(state.left.spec)
+
+
+_VIEWS = ("radial", "slice", "pair", "two-electron", "terms")
 _JOBS = {"radial": _radial_job, "slice": _slice_job, "pair": _pair_job,
-         "two-electron": _two_electron_job}
+         "two-electron": _two_electron_job, "terms": _terms_job}
 
 
 def _contour_job(scenes: list[Any]) -> Any:
@@ -291,12 +298,16 @@ class MainWindow(QMainWindow):
             view.use_external_contours(True)
         self.tabs.addTab(self.pair_trio, "Pair")
         self.tabs.addTab(self.two_trio, "Two electrons")
+        self.terms_view = TermsView()
+        self.tabs.addTab(self.terms_view, "Terms")
         self.tabs.setTabToolTip(0, "Radial functions, distributions and cumulative charge")
         self.tabs.setTabToolTip(1, "Orbitals and densities on a plane through the atom")
         self.tabs.setTabToolTip(2, "For a reference electron at r₁: the other same-spin electrons, the "
                                    "opposite-spin electrons and the exchange (Fermi) hole")
         self.tabs.setTabToolTip(3, "Singlet and triplet of a two-electron configuration "
                                    "(e.g. Li+ 1s1 2s1) and their difference")
+        self.tabs.setTabToolTip(4, "LS terms, J levels and the ground level of the configuration "
+                                   "(Hund's rules, and the observed level where known)")
         self._trios = {"radial": self.radial_trio, "slice": self.slice_trio,
                        "pair": self.pair_trio, "two-electron": self.two_trio}
         self.energy_line = QLabel()
@@ -416,7 +427,7 @@ class MainWindow(QMainWindow):
         self._add(file_menu, "&Quit", self.close, QKeySequence.StandardKey.Quit)
         view_menu = self.menuBar().addMenu("&View")
         for index, text in enumerate(("&Radial curves", "&Slice", "&Pair densities",
-                                      "&Two electrons")):
+                                      "&Two electrons", "T&erms")):
             self._add(view_menu, text, lambda i=index: self.tabs.setCurrentIndex(i),
                       QKeySequence(f"Ctrl+{index + 1}"))
         view_menu.addSeparator()
@@ -511,8 +522,7 @@ class MainWindow(QMainWindow):
     def drawn(self, view: str) -> ViewState | None:
         """The state the named view's current picture was computed from, or None.
 
-        Views: ``radial``, ``slice``, ``pair``, ``two-electron`` (``terms`` has no
-        picture of its own here yet, so it is always None).
+        Views: ``radial``, ``slice``, ``pair``, ``two-electron`` and ``terms``.
         """
         return self._drawn.get(view)
 
@@ -589,6 +599,11 @@ class MainWindow(QMainWindow):
         drawn_state, result = result
         self._drawn[key] = drawn_state
         self._trouble.pop(key, None)
+        if key == "terms":
+            self.terms_view.show_summary(result)
+            self.statusBar().clearMessage()
+            self._refresh_banner()
+            return
         parts = ([result.left, result.right, result.difference]
                  if hasattr(result, "difference") else [result])
         trio = self._trios[key]
@@ -615,6 +630,8 @@ class MainWindow(QMainWindow):
             self.statusBar().showMessage(f"Contour lines not drawn: {message}", 8000)
             return
         self._trouble[key] = f"failed: {message}"
+        if key == "terms":
+            self.terms_view.show_error(self.model.state.left.spec, message)
         self.statusBar().clearMessage()  # the last progress line would read as current
         self._banner_timer.stop()
         self._refresh_banner()
@@ -743,6 +760,11 @@ class MainWindow(QMainWindow):
         return self._export(Path(path), None, 300)
 
     def _export(self, path: Path, width: str | None, dpi: int) -> bool:
+        if self.model.state.view == "terms":
+            self.statusBar().showMessage(
+                "Not exported: the Terms view is a table; copy it with Ctrl+C, or use "
+                "'zeffir terms SPEC --json'", 10000)
+            return False
         problem = self.problem()
         if problem is not None:
             self.statusBar().showMessage(
@@ -826,4 +848,6 @@ def _view_inputs(state: ViewState) -> tuple[object, ...]:
         return (*common, state.slice, state.orbital, state.compare)
     if state.view == "pair":
         return (*common, state.slice, state.pair)
+    if state.view == "terms":
+        return (state.left.spec,)
     return (*common, state.two_electron, state.slice.contours)

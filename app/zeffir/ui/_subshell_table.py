@@ -22,7 +22,12 @@ COLUMNS: tuple[tuple[str, str], ...] = (
     ("⟨r⟩", "Mean radius ⟨r⟩ = ∫ r · r²R² dr"),
     ("r_max", "Radius of the highest maximum of the radial distribution r²R²"),
     ("ε", "Orbital energy, where the model defines one"),
+    ("⟨r²⟩", "⟨r²⟩ = ∫ r² · r²R² dr (diamagnetic susceptibility, size)"),
+    ("⟨1/r⟩", "⟨1/r⟩ = ∫ r⁻¹ · r²R² dr (nuclear attraction, electron density at the nucleus scale)"),
+    ("⟨r⁻³⟩", "⟨r⁻³⟩ = ∫ r⁻³ · r²R² dr (spin–orbit and hyperfine integrals; infinite for s)"),
 )
+#: Columns 8–10 (the further radial moments) are shown on request.
+MOMENT_COLUMNS: tuple[int, ...] = (8, 9, 10)
 
 
 class SubshellTable(QTableWidget):
@@ -48,6 +53,11 @@ class SubshellTable(QTableWidget):
         self.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         self.setAlternatingRowColors(True)
         self.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeMode.Stretch)
+        self.moments_action = QAction("Show ⟨r²⟩, ⟨1/r⟩ and ⟨r⁻³⟩", self)
+        self.moments_action.setCheckable(True)
+        self.moments_action.toggled.connect(self.set_moment_columns)
+        self.addAction(self.moments_action)
+        self.set_moment_columns(False)
         copy = QAction("Copy table", self)
         copy.setShortcut(QKeySequence.StandardKey.Copy)
         copy.triggered.connect(self.copy_to_clipboard)
@@ -66,7 +76,8 @@ class SubshellTable(QTableWidget):
         self._units = ("Å", "eV") if angstrom else ("bohr", "Eh")
         lu, eu = self._units
         headers = ["Subshell", "Electrons", f"ζ / {lu}⁻¹", "Z_eff", "n*", f"⟨r⟩ / {lu}",
-                   f"r_max / {lu}", f"ε / {eu}"]
+                   f"r_max / {lu}", f"ε / {eu}", f"⟨r²⟩ / {lu}²", f"⟨1/r⟩ / {lu}⁻¹",
+                   f"⟨r⁻³⟩ / {lu}⁻³"]
         for column, text in enumerate(headers):
             header = self.horizontalHeaderItem(column)
             if header is not None:
@@ -76,7 +87,9 @@ class SubshellTable(QTableWidget):
         for i, row in enumerate(rows):
             cells = [row.label, str(row.occupancy), _num(row.zeta / length), _num(row.z_eff),
                      _num(row.n_star, 1), _num(row.r_mean * length), _num(row.r_max * length),
-                     _num(None if row.energy is None else row.energy * energy)]
+                     _num(None if row.energy is None else row.energy * energy),
+                     _num(_moment(row, 2) * length**2), _num(_moment(row, -1) / length),
+                     _num(_moment(row, -3) / length**3)]
             for column, text in enumerate(cells):
                 item = QTableWidgetItem(text)
                 align = Qt.AlignmentFlag.AlignLeft if column == 0 else Qt.AlignmentFlag.AlignRight
@@ -88,6 +101,13 @@ class SubshellTable(QTableWidget):
             if row.label == selected:
                 self.selectRow(i)
         self.blockSignals(False)
+
+    def set_moment_columns(self, visible: bool) -> None:
+        """Show or hide the ⟨r²⟩, ⟨1/r⟩ and ⟨r⁻³⟩ columns (also in the table's context menu)."""
+        for column in MOMENT_COLUMNS:
+            self.setColumnHidden(column, not visible)
+        if self.moments_action.isChecked() != visible:
+            self.moments_action.setChecked(visible)
 
     def select_subshell(self, label: str) -> None:
         """Select the row of ``label`` (if shown) without emitting ``subshell_selected``."""
@@ -102,10 +122,11 @@ class SubshellTable(QTableWidget):
     def as_text(self) -> str:
         """The table as tab-separated text with a header row (what Copy puts on the clipboard)."""
         headers = [self.horizontalHeaderItem(c).text() for c in range(self.columnCount())]
-        lines = ["\t".join(headers)]
+        shown = [c for c in range(self.columnCount()) if not self.isColumnHidden(c)]
+        lines = ["\t".join(headers[c] for c in shown)]
         for r in range(self.rowCount()):
             cells = []
-            for c in range(self.columnCount()):
+            for c in shown:
                 item = self.item(r, c)
                 cells.append(item.text().rstrip(" *") if item is not None else "")
             lines.append("\t".join(cells))
@@ -125,3 +146,9 @@ class SubshellTable(QTableWidget):
 
 def _num(value: float | None, digits: int = 4) -> str:
     return "—" if value is None or not math.isfinite(value) else f"{value:.{digits}f}"
+
+
+def _moment(row: SubshellSummary, k: int) -> float:
+    """⟨r^k⟩ of a row in atomic units; NaN where it is not finite (⟨r⁻³⟩ of s, shown as —)."""
+    value = row.moments.get(k)
+    return math.nan if value is None or not math.isfinite(value) else float(value)
