@@ -117,3 +117,38 @@ def test_collinear_singlet_and_difference_of_1s_2p_draw_their_nodal_lines(resolu
     for along in (singlet[:, 0], difference[:, 1]):
         ends = np.concatenate(([s[0]], np.sort(along), [s[-1]]))
         assert np.diff(ends).max() <= pixel * (1 + 1e-9)
+
+
+def test_the_exchange_hole_has_a_one_sided_scale():
+    scenes = pair_scenes(_pair_state("Ne", (0.0, 0.0, 0.5)))
+    hole = scenes.difference
+    assert not hole.signed and hole.colour_range[0] == 0.0 and hole.colour_range[1] > 0
+    assert np.nanmax(hole.values) <= 1e-12  # the hole is nowhere positive
+    np.testing.assert_array_equal(hole.image, -hole.values)  # colours show the depth
+    assert hole.value_label.startswith("depth −hₓ")
+    assert all(level > 0 for level in hole.levels)
+
+
+def test_pair_densities_are_not_saturated_by_the_nuclear_cusp():
+    state = _pair_state("Ne", (0.0, 0.0, 0.5))
+    scenes = pair_scenes(state)
+    # Robust scale: the top of the colour range lies below the cusp's peak value.
+    assert scenes.right.colour_range[1] < float(np.max(scenes.right.values))
+    full = pair_scenes(state.with_changes(slice=SliceSettings(extent=3.0, resolution=64,
+                                                              full_range=True)).validated())
+    assert full.right.colour_range[1] == pytest.approx(
+        max(np.max(full.left.values), np.max(full.right.values)))
+
+
+def test_pair_densities_follow_the_log_setting():
+    state = _pair_state("Ne", (0.0, 0.0, 0.5))
+    logged = pair_scenes(state.with_changes(slice=SliceSettings(
+        extent=3.0, resolution=64, log_scale=True)).validated())
+    for panel in (logged.left, logged.right):
+        assert panel.log_scale and panel.value_label.startswith("log₁₀")
+        np.testing.assert_allclose(10.0 ** panel.image[panel.values > 0],
+                                   np.maximum(panel.values, 10.0 ** panel.image.min())[panel.values > 0],
+                                   rtol=1e-12)
+    low, high = logged.left.colour_range
+    assert high - low == pytest.approx(6.0)
+    assert logged.left.colour_range == logged.right.colour_range

@@ -208,7 +208,9 @@ def test_pair_view_shows_densities_and_hole_and_click_moves_the_reference(window
     views = window.pair_trio.views
     images = [v.image_data() for v in views]
     assert all(image.shape == (64, 64) for image in images)
-    assert images[2].max() <= 0.0 < images[0].max()  # the hole is a deficit
+    # The hole is a deficit: its panel draws the depth −h ≥ 0, the scene keeps h ≤ 0.
+    assert images[2].min() >= 0.0 < images[2].max() and images[0].max() > 0
+    assert views[2]._scene.values.max() <= 0.0
     assert "∫ = -1.000" in views[2]._title.text()
     window._place_reference(0.5, -0.25)  # what a click at (u, v) on the xz plane does
     assert window.model.state.pair.reference == pytest.approx((0.5, 0.0, -0.25))

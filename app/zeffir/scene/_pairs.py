@@ -21,7 +21,14 @@ from zeffir.core.orbitals import FloatArray
 from zeffir.scene._build import orbitals_for
 from zeffir.scene._compare import SliceComparison
 from zeffir.scene._quantities import length_factor, length_symbol, unit_text
-from zeffir.scene._slice import SliceScene, colour_scale, contour_levels, plane_of
+from zeffir.scene._slice import (
+    LOG_DECADES,
+    ROBUST_SATURATION,
+    SliceScene,
+    colour_scale,
+    contour_levels,
+    plane_of,
+)
 from zeffir.state import ViewState
 
 if TYPE_CHECKING:  # the pairs package is imported when a pair view is first computed
@@ -108,12 +115,44 @@ def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: 
 
 
 def _image_scene(base: SliceScene, values: FloatArray, title: str, label: str,
-                 signed: bool, contours: int) -> SliceScene:
-    low, high = colour_scale(values, signed, False, robust=True)
+                 signed: bool, contours: int, *, log_scale: bool = False,
+                 robust: bool = True) -> SliceScene:
+    image = values
+    if log_scale and not signed:
+        peak = float(np.max(values)) if values.size else 0.0
+        floor = peak * 10.0 ** (-LOG_DECADES - 1) if peak > 0 else 1e-300
+        image = np.log10(np.maximum(values, floor))
+        label = f"log₁₀ {label}"
+    low, high = colour_scale(image, signed, log_scale and not signed, robust=robust)
     return replace(
-        base, title=title, orbital="", values=values, image=values, signed=signed,
-        log_scale=False, colour_range=(low, high), levels=contour_levels(low, high, contours, signed),
+        base, title=title, orbital="", values=values, image=image, signed=signed,
+        log_scale=log_scale and not signed, colour_range=(low, high),
+        levels=contour_levels(low, high, contours, signed),
         zero_contour=signed, value_label=label, contours=None,
+    )
+
+
+def _hole_scene(base: SliceScene, hole: FloatArray, title: str, label: str, contours: int,
+                robust: bool) -> SliceScene:
+    """The exchange hole is ≤ 0 everywhere: a one-sided scale from zero to its depth.
+
+    With ``robust`` the scale ends at the 99.5th percentile of the depth, like the
+    densities', so the hole near a nucleus does not wash out the rest.
+    """
+    finite = hole[np.isfinite(hole)]
+    deepest = float(-np.min(finite)) if finite.size else 1.0
+    sample = -hole[::4, ::4]
+    sample = sample[np.isfinite(sample)]
+    if robust and sample.size:
+        clipped = float(np.quantile(sample, 1.0 - ROBUST_SATURATION))
+        deepest = clipped if clipped > 0 else deepest
+    # Colours show the depth −h (0 dark, the deepest part bright, as in the density panels);
+    # ``values`` keep h itself for the read-out and the data files.
+    top = deepest or 1.0
+    return replace(
+        base, title=title, orbital="", values=hole, image=-hole, signed=False, log_scale=False,
+        colour_range=(0.0, top), levels=contour_levels(0.0, top, contours, False),
+        zero_contour=False, value_label=f"depth −{label}", contours=None,
     )
 
 
@@ -152,21 +191,26 @@ def pair_scenes(state: ViewState) -> PairScenes:
         levels=(), zero_contour=False,
     )
     contours = state.slice.contours
+    log_scale, robust = state.slice.log_scale, not state.slice.full_range
     left = _image_scene(base, same, f"{configuration.spec}: other {arrow} electrons",
-                        f"ρ₂{arrow}{arrow}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours)
+                        f"ρ₂{arrow}{arrow}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
+                        log_scale=log_scale, robust=robust)
     opposite = "↓" if spin == UP else "↑"
     right = _image_scene(base, other, f"{configuration.spec}: {opposite} electrons",
-                         f"ρ₂{arrow}{opposite}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours)
+                         f"ρ₂{arrow}{opposite}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
+                         log_scale=log_scale, robust=robust)
+    # One colour scale for both densities, so the two panels compare directly.
     top = max(left.colour_range[1], right.colour_range[1])
-    levels = contour_levels(0.0, top, contours, False)
-    left = replace(left, colour_range=(0.0, top), levels=levels)
-    right = replace(right, colour_range=(0.0, top), levels=levels)
+    bottom = top - LOG_DECADES if log_scale else 0.0
+    levels = contour_levels(bottom, top, contours, False)
+    left = replace(left, colour_range=(bottom, top), levels=levels)
+    right = replace(right, colour_range=(bottom, top), levels=levels)
     integral = hole_integral(orbitals, r1, spin, determinant)
     depth = -rho * density
-    difference = _image_scene(
+    difference = _hole_scene(
         base, hole,
         f"exchange hole: ∫ = {integral:.4f}, at r₁ {depth:.3g}",
-        f"hₓ{arrow}(r₁; r₂) / {density_unit}", True, contours,
+        f"hₓ{arrow}(r₁; r₂) / {density_unit}", contours, robust,
     )
     from zeffir.core.pairs import format_determinant
 

@@ -297,7 +297,7 @@ class ViewControls(QWidget):
         self.resolution.setValue(s.resolution)
         self.contours.setValue(s.contours)
         self.log_scale.setChecked(s.log_scale)
-        self.log_scale.setEnabled(s.quantity != "psi")
+        self.log_scale.setEnabled(s.quantity != "psi" or state.view == "pair")
         self.full_range.setChecked(s.full_range)
         c = state.compare
         self.compare_on.setChecked(c.enabled)
