@@ -139,7 +139,8 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str])
                         help="slice: distance of the plane from the nucleus, in the --units length "
                         "(default 0)")
     figure.add_argument("--extent", type=float, metavar="L",
-                        help="slice: half-width of the square shown, in the --units length (default 8 bohr)")
+                        help="slice: half-width of the square shown, in the --units length "
+                        "(default: fitted to hold 99.9 %% of the orbital's charge)")
     figure.add_argument("--resolution", type=int, metavar="N",
                         help="slice: grid points along each side (default 256)")
     figure.add_argument("--contours", type=int, metavar="K",
@@ -539,6 +540,7 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         normal=tuple(args.normal) if args.normal is not None else defaults.normal,
         offset=defaults.offset if offset is None else offset,
         extent=defaults.extent if extent is None else extent,
+        fit_extent=extent is None,
         resolution=defaults.resolution if args.resolution is None else args.resolution,
         contours=defaults.contours if args.contours is None else args.contours,
         quantity=slice_quantity,

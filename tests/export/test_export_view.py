@@ -9,7 +9,7 @@ from zeffir.export import EXPORT_FORMATS, ExportError, export_view, view_target
 from zeffir.scene import RadialComparison, RadialScene, SliceComparison, SliceScene, slice_scene
 from zeffir.state import CompareSettings, SliceSettings, Source, StateError, ViewState
 
-SLICE = ViewState(view="slice", slice=SliceSettings(resolution=32, extent=8.0))
+SLICE = ViewState(view="slice", slice=SliceSettings(resolution=32, extent=8.0, fit_extent=False))
 
 
 def test_view_target_follows_the_view_and_the_comparison_switch():

@@ -14,7 +14,7 @@ from zeffir.ui import MainWindow
 def window(qtbot, tmp_path):
     settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
     state = ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"), view="slice",
-                      slice=SliceSettings(resolution=48, offset=0.5, extent=6.0),
+                      slice=SliceSettings(resolution=48, offset=0.5, extent=6.0, fit_extent=False),
                       pair=PairSettings(reference=(0.0, 0.0, 1.1)))
     win = MainWindow(state, synchronous=True, settings=settings)
     qtbot.addWidget(win)

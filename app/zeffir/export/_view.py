@@ -16,6 +16,7 @@ from zeffir.scene import (
     radial_scene,
     slice_scene,
     two_electron_scenes,
+    with_fitted_extent,
 )
 from zeffir.state import ViewState
 
@@ -38,6 +39,7 @@ def view_target(state: ViewState) -> Target:
     -------
     RadialScene, SliceScene, RadialComparison or SliceComparison
     """
+    state = with_fitted_extent(state)
     if state.view == "pair":
         return pair_scenes(state)
     if state.view == "two-electron":

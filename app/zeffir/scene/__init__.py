@@ -8,6 +8,7 @@ from zeffir.scene._build import forget_failure, known_failure, orbitals_for
 from zeffir.scene._colours import DIVERGING, LINE_COLOURS, SEQUENTIAL, colour_stops, subshell_colour
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
+from zeffir.scene._framing import fitted_extent, with_fitted_extent
 from zeffir.scene._pairs import (
     PairScenes,
     TwoElectronScenes,
@@ -51,6 +52,7 @@ __all__ = [
     "compare_slices",
     "contour_levels",
     "determinant_for",
+    "fitted_extent",
     "forget_failure",
     "hole_integral",
     "known_failure",
@@ -67,4 +69,5 @@ __all__ = [
     "trace_contours",
     "two_electron_scenes",
     "unit_text",
+    "with_fitted_extent",
 ]

@@ -105,6 +105,8 @@ class SliceSettings:
     log_scale: bool = False
     contours: int = 8
     full_range: bool = False  # colour scale to the extreme values (else robust, see scene)
+    # Half-width fitted to what is shown (99.9 % of the orbital's charge) instead of ``extent``.
+    fit_extent: bool = True
 
 
 @dataclass(frozen=True)
@@ -223,6 +225,10 @@ class ViewState:
         """
         if not isinstance(data, dict):
             raise StateError("state: expected an object")
+        plane = data.get("slice")
+        if isinstance(plane, dict) and "fit_extent" not in plane:
+            # Sessions written before the setting existed keep the half-width they saved.
+            data = {**data, "slice": {**plane, "fit_extent": False}}
         compare = data.get("compare")
         if isinstance(compare, dict) and "same_atom" not in compare:
             # Sessions written before the setting existed: a right-hand atom that differs

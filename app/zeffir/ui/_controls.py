@@ -153,6 +153,9 @@ class ViewControls(QWidget):
         self.offset.setToolTip("Signed distance of the plane from the nucleus along its normal")
         self.extent = _spin(*_EXTENT_RANGE, 0.5, 2, " bohr")
         self.extent.setToolTip("Half-width of the square window")
+        self.fit_extent = QCheckBox("Fit to the orbital (99.9 % of its charge)")
+        self.fit_extent.setToolTip("The half-width follows the chosen orbital (the outermost "
+                                   "subshell for densities); untick to set it yourself")
         self.resolution = QSpinBox()
         self.resolution.setRange(16, MAX_VIEW_RESOLUTION)
         self.resolution.setSingleStep(64)
@@ -175,6 +178,7 @@ class ViewControls(QWidget):
         form.addRow("Normal", normal_row)
         form.addRow("Offset", self.offset)
         form.addRow("Half-width", self.extent)
+        form.addRow(self.fit_extent)
         form.addRow("Resolution", self.resolution)
         form.addRow("Contours", self.contours)
         form.addRow(self.log_scale)
@@ -183,6 +187,7 @@ class ViewControls(QWidget):
         self.plane.activated.connect(lambda _i: self._emit_slice())
         self.log_scale.toggled.connect(lambda _b: self._emit_slice())
         self.full_range.toggled.connect(lambda _b: self._emit_slice())
+        self.fit_extent.toggled.connect(lambda _b: self._emit_slice())
         for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours):
             spin.valueChanged.connect(lambda _v: self._slice_timer.start())
         return box
@@ -271,7 +276,7 @@ class ViewControls(QWidget):
             self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
             self.offset, self.extent, self.resolution, self.log_scale, self.contours,
-            self.full_range,
+            self.full_range, self.fit_extent,
             self.compare_on, self.show_difference, self.same_atom,
         ]
         for widget in widgets:
@@ -294,6 +299,8 @@ class ViewControls(QWidget):
         self._show_length_unit(state.length_unit)
         self.offset.setValue(s.offset * self._length_scale)
         self.extent.setValue(s.extent * self._length_scale)
+        self.fit_extent.setChecked(s.fit_extent)
+        self.extent.setEnabled(not s.fit_extent)
         self.resolution.setValue(s.resolution)
         self.contours.setValue(s.contours)
         self.log_scale.setChecked(s.log_scale)
@@ -346,6 +353,21 @@ class ViewControls(QWidget):
             return current
         return spin.value() / self._length_scale
 
+    def _extent_bohr(self) -> float:
+        """The half-width to store: unchanged while fitting; the fitted one when fitting stops."""
+        current = self._state.slice.extent
+        if self.fit_extent.isChecked():
+            return current
+        if self._state.slice.fit_extent:  # just unticked: keep what is on screen
+            return self.extent.value() / self._length_scale
+        return self._bohr(self.extent, current)
+
+    def show_fitted_extent(self, bohr: float) -> None:
+        """Show the half-width the view fitted (the box is disabled while fitting)."""
+        self.extent.blockSignals(True)
+        self.extent.setValue(bohr * self._length_scale)
+        self.extent.blockSignals(False)
+
     def show_groups_for(self, view: str) -> None:
         """Show only the settings the view uses (the slice plane serves the pair view too)."""
         self.radial_box.setVisible(view == "radial")
@@ -377,11 +399,12 @@ class ViewControls(QWidget):
             plane=str(self.plane.currentData()),
             normal=normal,
             offset=self._bohr(self.offset, self._state.slice.offset),
-            extent=self._bohr(self.extent, self._state.slice.extent),
+            extent=self._extent_bohr(),
             resolution=self.resolution.value(),
             contours=self.contours.value(),
             log_scale=self.log_scale.isChecked(),
             full_range=self.full_range.isChecked(),
+            fit_extent=self.fit_extent.isChecked(),
         ))
 
     def _emit_pair(self) -> None:

@@ -42,6 +42,7 @@ from zeffir.scene import (
     radial_scene,
     slice_scene,
     two_electron_scenes,
+    with_fitted_extent,
 )
 from zeffir.state import OrbitalChoice, Source, ViewState
 from zeffir.ui._about import show_about, show_help
@@ -72,13 +73,14 @@ def _radial_job(state: ViewState) -> Any:
 
 
 def _slice_job(state: ViewState) -> Any:
+    state = with_fitted_extent(state)
     if state.compare.enabled:
         return compare_slices(state)
     return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
 
 
 def _pair_job(state: ViewState) -> Any:
-    return pair_scenes(state)
+    return pair_scenes(with_fitted_extent(state))
 
 
 def _two_electron_job(state: ViewState) -> Any:
@@ -609,6 +611,10 @@ class MainWindow(QMainWindow):
         trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
+        if key in ("slice", "pair") and drawn_state.slice.fit_extent:
+            scale = length_factor(drawn_state.length_unit, 1.0)
+            half = float(abs(parts[0].coordinates).max()) / scale
+            self.controls.show_fitted_extent(half)
         if key != "radial":
             if key in ("slice", "pair"):
                 point_of = _point_mapper(state)

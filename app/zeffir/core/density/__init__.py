@@ -3,6 +3,7 @@
 from zeffir.core.density._plane import MAX_RESOLUTION, NAMED_PLANES, Plane
 from zeffir.core.density._radial_curves import (
     cumulative_charge,
+    enclosing_radius,
     radial_grid,
     spherical_density,
     subshell_distributions,
@@ -27,6 +28,7 @@ __all__ = [
     "density_on_plane",
     "density_on_plane_direct",
     "density_on_plane_numpy",
+    "enclosing_radius",
     "orbital_density_on_plane",
     "orbital_on_plane",
     "orbital_on_plane_direct",

@@ -9,6 +9,7 @@ from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction
 
 __all__ = [
     "cumulative_charge",
+    "enclosing_radius",
     "radial_grid",
     "spherical_density",
     "subshell_distributions",
@@ -73,6 +74,42 @@ def cumulative_charge(orbitals: OrbitalSet, r: npt.ArrayLike, label: str | None 
     for o in chosen:
         out += o.occupancy * o.radial.cumulative(rr)
     return out
+
+
+def enclosing_radius(radial: RadialFunction, fraction: float = 0.999) -> float:
+    """The radius inside which a fraction of one electron of the orbital lies.
+
+    Parameters
+    ----------
+    radial : RadialFunction
+        Normalised radial function (∫ R² r² dr = 1).
+    fraction : float
+        Between 0 and 1 (exclusive).
+
+    Returns
+    -------
+    float
+        r in bohr with ∫₀^r R² r'² dr' = fraction, to 1e-10 relative (bisection on
+        the function's own cumulative charge).
+
+    Examples
+    --------
+    Hydrogen 1s: Q(r) = 1 − e^(−2r)(1 + 2r + 2r²), so Q(enclosing_radius(R_1s, 0.999)) = 0.999.
+    """
+    if not 0.0 < fraction < 1.0:
+        raise ValueError(f"fraction must lie between 0 and 1, got {fraction}")
+    low, high = 0.0, float(radial.extent(1e-14))
+    while float(radial.cumulative(np.asarray([high]))[0]) < fraction:
+        high *= 2.0
+    for _ in range(200):
+        middle = 0.5 * (low + high)
+        if float(radial.cumulative(np.asarray([middle]))[0]) < fraction:
+            low = middle
+        else:
+            high = middle
+        if high - low <= 1e-10 * high:
+            break
+    return 0.5 * (low + high)
 
 
 def spherical_density(orbitals: OrbitalSet, r: npt.ArrayLike) -> FloatArray:
