@@ -97,3 +97,18 @@ def test_difference_titles_name_only_what_differs():
     assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (Slater's rules)"
     assert difference_title("Ne", "slater", "Ar", "clementi") == \
         "(Ar, optimised exponents (Clementi–Raimondi)) − (Ne, Slater's rules)"
+
+
+def test_subshells_of_one_atom_keep_distinct_colours():
+    from zeffir.core import element
+    from zeffir.scene import subshell_colour
+
+    # 1s and 3d once shared a colour; up to krypton colour alone tells every subshell apart,
+    # and up to oganesson colour with dash style does.
+    assert subshell_colour("1s")[0] != subshell_colour("3d")[0]
+    for z in range(1, 119):
+        labels = [sub.label for sub, _ in element(z).ground]
+        styles = [subshell_colour(label) for label in labels]
+        assert len(set(styles)) == len(styles), element(z).symbol
+        if z <= 36:
+            assert len({colour for colour, _ in styles}) == len(styles), element(z).symbol

@@ -37,10 +37,8 @@ LINE_WIDTH: Final[float] = 0.8
 #: STIXGeneral (also shipped) fills the few symbols it lacks, such as ⟂.
 FONT_FAMILY: Final[tuple[str, ...]] = ("DejaVu Sans", "STIXGeneral")
 
-#: Okabe and Ito's colour-blind-safe qualitative palette (without black, kept for the
-#: total, and without yellow, too pale on white), for subshell curves; the same colours
-#: in the same order as the window's radial view.
-#: Reference: M. Okabe and K. Ito, "Color Universal Design" (2008).
+#: Subshell curves take zeffir.scene.LINE_COLOURS (Paul Tol's colour-blind-safe "muted"
+#: scheme, SRON/EPS/TN/09-002, 2021): the same colours in the same order as the window.
 
 #: Cycled after the colours, so that more subshells than colours stay distinct.
 LINE_STYLES: Final[tuple[str, ...]] = ("-", "--", "-.")

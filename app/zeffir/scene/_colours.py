@@ -37,10 +37,14 @@ def colour_stops(signed: bool) -> tuple[tuple[float, ...], tuple[str, ...]]:
     return tuple(i / n for i in range(n + 1)), colours
 
 
-#: Okabe–Ito colour-blind-safe qualitative palette for subshell curves (the total is black).
-#: M. Okabe and K. Ito, "Color Universal Design" (2002/2008).
+#: Paul Tol's colour-blind-safe "muted" qualitative scheme (its nine line colours, the pale
+#: grey left out) for subshell curves; the total is black. Nine colours keep every
+#: subshell of an atom up to krypton apart by colour alone (1s to 5s in filling order);
+#: beyond, the dash style separates them. P. Tol, "Colour Schemes", SRON technical
+#: note SRON/EPS/TN/09-002 (2021), Fig. 5.
 LINE_COLOURS: Final[tuple[str, ...]] = (
-    "#0072B2", "#D55E00", "#009E73", "#CC79A7", "#E69F00", "#56B4E9",
+    "#332288", "#CC6677", "#117733", "#882255", "#44AA99", "#999933", "#AA4499", "#88CCEE",
+    "#DDCC77",
 )
 
 _L_LETTERS: Final = "spdfghik"
@@ -54,8 +58,8 @@ _FILLING_ORDER: Final[tuple[tuple[int, int], ...]] = tuple(
 def subshell_colour(subshell: str | None, fallback: int = 0) -> tuple[str, int]:
     """Colour of a subshell's curve and its dash index (0 solid, 1 dashed, 2 dash-dot).
 
-    The total (``None``) is black and solid. Beyond the palette's six colours the
-    colours repeat with the next dash style, so up to 18 subshells stay distinct.
+    The total (``None``) is black and solid. Beyond the palette's nine colours the
+    colours repeat with the next dash style, so up to 27 subshells stay distinct.
     Both the window and the exported figures use this rule.
     """
     if subshell is None:

@@ -1,8 +1,8 @@
 """Shared look of the plot views: palette, pens, axis styling, tooltips and number text.
 
 The look is meant for reading numbers and for figures: white ground, dark axes
-framing the plot on four sides, a faint grid, and line colours from the
-Okabe–Ito palette, which stays distinguishable under the common forms of colour
+framing the plot on four sides, a faint grid, and line colours from Paul Tol's
+"muted" scheme, which stays distinguishable under the common forms of colour
 blindness. Colour maps for slices come from :func:`zeffir.scene.colour_stops` only.
 
 Importing this module sets pyqtgraph's ``imageAxisOrder`` to ``"row-major"``:
@@ -10,8 +10,7 @@ scene arrays are ``values[j, i]`` with ``j`` along the vertical axis.
 
 References
 ----------
-M. Okabe and K. Ito, "Color Universal Design (CUD): how to make figures and
-presentations that are friendly to colorblind people" (2002).
+P. Tol, "Colour Schemes", SRON technical note SRON/EPS/TN/09-002 (2021).
 """
 
 from __future__ import annotations
@@ -48,8 +47,7 @@ __all__ = [
 
 pg.setConfigOptions(imageAxisOrder="row-major")
 
-#: Okabe–Ito colours for subshell curves. Its yellow (too pale on white) and its
-#: black (kept for the total) are left out.
+#: Subshell curve colours (Tol's "muted" scheme, see zeffir.scene.LINE_COLOURS).
 PALETTE: Final[tuple[str, ...]] = LINE_COLOURS
 TOTAL_COLOUR: Final = "#000000"
 AXIS_COLOUR: Final = "#262626"
@@ -61,7 +59,7 @@ SUBSHELL_WIDTH: Final = 1.6
 HIGHLIGHT_WIDTH: Final = 3.4
 TOTAL_WIDTH: Final = 2.6
 
-#: Beyond the palette's six colours, curves repeat them with these dash styles.
+#: Beyond the palette's nine colours, curves repeat them with these dash styles.
 _DASHES: Final = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DashDotLine)
 
 def subshell_style(subshell: str | None, fallback: int = 0) -> tuple[str, Qt.PenStyle]:

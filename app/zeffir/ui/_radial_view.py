@@ -72,7 +72,7 @@ class RadialView(QWidget):
     """Radial curves (R, P, D or Q) of one scene, with r_max, ⟨r⟩ and node markers.
 
     The view draws whatever scene it is given and nothing else; it holds no
-    physics state. Subshell curves take Okabe–Ito colours that stay the same
+    physics state. Subshell curves take colour-blind-safe colours that stay the same
     for a subshell in every atom; the total is black and thicker; the
     highlighted subshell is drawn thickest. Moving the pointer shows a
     crosshair and, below the plot, r and every curve's value at that r.
