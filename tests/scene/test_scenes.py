@@ -91,12 +91,12 @@ def test_radial_difference_uses_one_grid():
 def test_difference_titles_name_only_what_differs():
     from zeffir.scene._compare import difference_title
 
-    # Titles use the models' display names, as the menus do.
+    # Readable short names (the panel is narrow), not the registry's internal ones.
     assert difference_title("Gd", "hartree-fock", "Gd", "hartree-fock-average") == \
-        "Gd: Hartree–Fock, average of configuration − restricted Hartree–Fock"
-    assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (Slater's rules)"
+        "Gd: HF average − HF"
+    assert difference_title("Ne", "slater", "Ar", "slater") == "Ar − Ne (Slater)"
     assert difference_title("Ne", "slater", "Ar", "clementi") == \
-        "(Ar, optimised exponents (Clementi–Raimondi)) − (Ne, Slater's rules)"
+        "(Ar, Clementi–Raimondi) − (Ne, Slater)"
 
 
 def test_subshells_of_one_atom_keep_distinct_colours():

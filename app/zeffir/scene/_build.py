@@ -12,7 +12,12 @@ from functools import lru_cache
 from zeffir.core import ComputationCancelled, OrbitalSet, ZeffirError, build
 from zeffir.state import Source
 
-__all__ = ["forget_failure", "known_failure", "model_title", "orbitals_for"]
+__all__ = ["forget_failure", "known_failure", "model_title", "orbitals_for", "short_model_name"]
+
+# Short names for the difference panels' titles, which must fit one narrow panel.
+_SHORT_NAMES = {"hydrogenic": "hydrogenic", "slater": "Slater", "clementi": "Clementi–Raimondi",
+                "variational": "variational", "hartree-fock": "HF",
+                "hartree-fock-average": "HF average"}
 
 _MAX_FAILURES = 64
 _failures: dict[tuple[str, str], ZeffirError] = {}
@@ -59,6 +64,11 @@ def model_title(name: str) -> str:
         return get_model(name).title
     except ZeffirError:
         return name
+
+
+def short_model_name(name: str) -> str:
+    """A model's name short enough for a panel title ('HF', 'Slater'); else its title."""
+    return _SHORT_NAMES.get(name) or model_title(name)
 
 
 def known_failure(source: Source) -> ZeffirError | None:

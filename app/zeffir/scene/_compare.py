@@ -6,7 +6,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from zeffir.scene._build import model_title, orbitals_for
+from zeffir.scene._build import orbitals_for, short_model_name
 from zeffir.scene._radial import Curve, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import SliceScene, colour_scale, contour_levels, slice_scene
 from zeffir.state import ViewState
@@ -20,9 +20,9 @@ def difference_title(left_spec: str, left_model: str, right_spec: str, right_mod
     Examples
     --------
     >>> difference_title("Ne", "slater", "Ar", "slater")
-    "Ar − Ne (Slater's rules)"
+    'Ar − Ne (Slater)'
     """
-    left_model, right_model = model_title(left_model), model_title(right_model)
+    left_model, right_model = short_model_name(left_model), short_model_name(right_model)
     if left_spec == right_spec:
         return f"{left_spec}: {right_model} − {left_model}"
     if left_model == right_model:

@@ -118,15 +118,18 @@ def _table_job(source: Source, right: Source | None = None, unit: str = "bohr") 
             lines.append(f"versus {_source_text(right)}: failed: {error}")
         else:
             lines.append(f"versus: {_energy_summary(right, other, unit)}")
+            same_atom = other.configuration.occupations == orbitals.configuration.occupations
             notes += [f"versus ({right.spec}, {right.model}): {note}"
-                      for note in _notes_of(other, subshell_table(other))]
+                      for note in _notes_of(other, subshell_table(other))
+                      if not (same_atom and note == other.configuration.origin_note)]
     return source, rows, "\n".join(lines), notes
 
 
 def _notes_of(orbitals: Any, rows: Any) -> list[str]:
     """Set-wide notes first (where the configuration comes from, the model's), then per row."""
     notes = [orbitals.configuration.origin_note, *orbitals.notes]
-    notes += [f"{row.label}: {note}" for row in rows for note in row.notes]
+    notes += [note if note.startswith(f"{row.label}:") else f"{row.label}: {note}"
+              for row in rows for note in row.notes]
     return list(dict.fromkeys(notes))
 
 
