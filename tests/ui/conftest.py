@@ -8,3 +8,21 @@ import pyqtgraph as pg  # after the platform choice above
 
 # Scene arrays are values[j, i] with j along the vertical axis (the widgets set it too).
 pg.setConfigOptions(imageAxisOrder="row-major")
+
+import pytest  # noqa: E402 - after the platform choice above
+
+
+@pytest.fixture
+def make_window(qtbot, tmp_path):
+    """A factory of synchronous windows on a state, with settings in a temporary file."""
+    from PySide6.QtCore import QSettings
+
+    from zeffir.ui import MainWindow
+
+    def make(state, synchronous=True):
+        settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
+        window = MainWindow(state, synchronous=synchronous, settings=settings)
+        qtbot.addWidget(window)
+        return window
+
+    return make

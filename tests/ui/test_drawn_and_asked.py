@@ -20,13 +20,9 @@ def _title(view) -> str:
 
 
 @pytest.fixture
-def window(qtbot, tmp_path):
-    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
-    state = ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"),
-                      slice=SliceSettings(resolution=48, extent=10.0))
-    win = MainWindow(state, synchronous=True, settings=settings)
-    qtbot.addWidget(win)
-    return win
+def window(make_window):
+    return make_window(ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"),
+                      slice=SliceSettings(resolution=48, extent=10.0)))
 
 
 def test_a_current_view_has_no_problem_and_names_its_drawn_state(window):

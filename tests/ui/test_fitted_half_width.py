@@ -3,23 +3,17 @@
 from __future__ import annotations
 
 import pytest
-from PySide6.QtCore import QSettings
 
 from zeffir.core import build, cumulative_charge
 from zeffir.export import view_target
 from zeffir.scene import fitted_extent
 from zeffir.state import OrbitalChoice, SliceSettings, Source, ViewState
-from zeffir.ui import MainWindow
 
 
 @pytest.fixture
-def window(qtbot, tmp_path):
-    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
-    state = ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d"), view="slice",
-                      slice=SliceSettings(resolution=48))
-    win = MainWindow(state, synchronous=True, settings=settings)
-    qtbot.addWidget(win)
-    return win
+def window(make_window):
+    return make_window(ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d"), view="slice",
+                      slice=SliceSettings(resolution=48)))
 
 
 def test_the_fitted_half_width_holds_the_orbitals_charge():

@@ -3,21 +3,15 @@
 from __future__ import annotations
 
 import pytest
-from PySide6.QtCore import QSettings
 
 from zeffir.core import EV_PER_HARTREE
 from zeffir.state import CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
-from zeffir.ui import MainWindow
 
 
 @pytest.fixture
-def window(qtbot, tmp_path):
-    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
-    state = ViewState(left=Source("Fe3+", "clementi"), orbital=OrbitalChoice("3d"),
-                      slice=SliceSettings(resolution=48))
-    win = MainWindow(state, synchronous=True, settings=settings)
-    qtbot.addWidget(win)
-    return win
+def window(make_window):
+    return make_window(ViewState(left=Source("Fe3+", "clementi"), orbital=OrbitalChoice("3d"),
+                      slice=SliceSettings(resolution=48)))
 
 
 def test_set_wide_notes_reach_the_window(window):

@@ -3,22 +3,16 @@
 from __future__ import annotations
 
 import pytest
-from PySide6.QtCore import QSettings
 
 from zeffir.core import ANGSTROM_PER_BOHR
 from zeffir.state import OrbitalChoice, PairSettings, SliceSettings, Source, ViewState
-from zeffir.ui import MainWindow
 
 
 @pytest.fixture
-def window(qtbot, tmp_path):
-    settings = QSettings(str(tmp_path / "settings.ini"), QSettings.Format.IniFormat)
-    state = ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"), view="slice",
+def window(make_window):
+    return make_window(ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"), view="slice",
                       slice=SliceSettings(resolution=48, offset=0.5, extent=6.0, fit_extent=False),
-                      pair=PairSettings(reference=(0.0, 0.0, 1.1)))
-    win = MainWindow(state, synchronous=True, settings=settings)
-    qtbot.addWidget(win)
-    return win
+                      pair=PairSettings(reference=(0.0, 0.0, 1.1))))
 
 
 def test_length_boxes_follow_the_unit(window):

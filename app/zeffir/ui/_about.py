@@ -27,13 +27,17 @@ def about_html() -> str:
     )
 
 
+def _show_rich_text(parent: QWidget | None, title: str, text: str) -> None:
+    box = QMessageBox(parent)
+    box.setWindowTitle(title)
+    box.setTextFormat(box.textFormat().RichText)
+    box.setText(text)
+    box.exec()
+
+
 def show_about(parent: QWidget | None) -> None:
     """Open the About box."""
-    box = QMessageBox(parent)
-    box.setWindowTitle("About Zeffir")
-    box.setTextFormat(box.textFormat().RichText)
-    box.setText(about_html())
-    box.exec()
+    _show_rich_text(parent, "About Zeffir", about_html())
 
 
 def help_html() -> str:
@@ -64,8 +68,4 @@ def help_html() -> str:
 
 def show_help(parent: QWidget | None) -> None:
     """Open the help box (F1)."""
-    box = QMessageBox(parent)
-    box.setWindowTitle("Zeffir help")
-    box.setTextFormat(box.textFormat().RichText)
-    box.setText(help_html())
-    box.exec()
+    _show_rich_text(parent, "Zeffir help", help_html())
