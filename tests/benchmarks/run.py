@@ -128,6 +128,14 @@ def main() -> int:
         parse_spec(spec)
     per_spec = (time.perf_counter() - start) / len(specs)
     report("ion_ground_parse", per_spec * 1e6, "µs per spec", "(no goal)")
+    # (viii) framing a slice to the orbital (99.9 % of its charge), per request; no goal.
+    from zeffir.scene import fitted_extent
+    from zeffir.state import OrbitalChoice, Source, ViewState
+
+    framed = ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d"), view="slice")
+    fitted_extent(framed)  # builds and caches the orbital set
+    report("fitted_extent_fe_3d", median_seconds(lambda: fitted_extent(framed)) * 1e3, "ms",
+           "(no goal)")
     window_cases(baseline)
     return 0
 
