@@ -208,3 +208,16 @@ def test_the_terms_view_lists_the_terms_of_the_asked_atom(window, tmp_path):
     assert "7F0" in window.terms_view.as_text() or "⁷F" in window.terms_view.as_text()
     assert window.export_figure(tmp_path / "terms.png") is False
     assert not window.controls.radial_box.isVisibleTo(window.controls)
+
+
+def test_a_segment_on_a_slice_panel_shows_its_line_profile(window):
+    window.apply(window.state.with_changes(view="slice", orbital=OrbitalChoice("3s")))
+    view = window.slice_trio.views[0]
+    view.profile_requested.emit(-4.0, 0.0, 4.0, 0.0)
+    profile = window.profile_view.profile()
+    assert profile is not None and not window.profile_dock.isHidden()
+    assert profile.s[0] == 0.0 and profile.s[-1] == pytest.approx(8.0)
+    # a new orbital keeps the segment and recomputes the profile under it
+    window.apply(window.state.with_changes(orbital=OrbitalChoice("2p")))
+    assert window.profile_view.profile() is not profile
+    assert window.profile_view.profile().orbital != profile.orbital

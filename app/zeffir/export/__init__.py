@@ -8,6 +8,7 @@ from zeffir.export._atomic import atomic_file, atomic_path, write_atomic
 from zeffir.export._data import CAUTION, DATA_FORMATS, write_data
 from zeffir.export._errors import ExportError, SessionError
 from zeffir.export._figures import DPI_RANGE, FIGURE_FORMATS, write_figure
+from zeffir.export._profile_data import PROFILE_SKIPROWS, profile_csv_text, write_profile_csv
 from zeffir.export._session import SESSION_KIND, SESSION_SUFFIX, SESSION_VERSION, load_session, save_session
 from zeffir.export._style import COLUMN_WIDTHS
 from zeffir.export._view import EXPORT_FORMATS, export_view, view_target
@@ -19,6 +20,7 @@ __all__ = [
     "DPI_RANGE",
     "EXPORT_FORMATS",
     "FIGURE_FORMATS",
+    "PROFILE_SKIPROWS",
     "SESSION_KIND",
     "SESSION_SUFFIX",
     "SESSION_VERSION",
@@ -28,9 +30,11 @@ __all__ = [
     "atomic_path",
     "export_view",
     "load_session",
+    "profile_csv_text",
     "save_session",
     "view_target",
     "write_atomic",
     "write_data",
     "write_figure",
+    "write_profile_csv",
 ]

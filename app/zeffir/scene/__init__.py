@@ -17,6 +17,7 @@ from zeffir.scene._pairs import (
     pair_scenes,
     two_electron_scenes,
 )
+from zeffir.scene._profile import PROFILE_POINTS, LineProfile, line_profile
 from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length_symbol, unit_text
 from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import (
@@ -34,10 +35,12 @@ __all__ = [
     "DIVERGING",
     "LINE_COLOURS",
     "LOG_DECADES",
+    "PROFILE_POINTS",
     "QUANTITIES",
     "SEQUENTIAL",
     "ContourPaths",
     "Curve",
+    "LineProfile",
     "Marker",
     "PairScenes",
     "Quantity",
@@ -58,6 +61,7 @@ __all__ = [
     "known_failure",
     "length_factor",
     "length_symbol",
+    "line_profile",
     "orbital_name",
     "orbitals_for",
     "pair_scenes",

@@ -13,6 +13,7 @@ from PySide6.QtWidgets import (
     QComboBox,
     QDialog,
     QDialogButtonBox,
+    QDockWidget,
     QFileDialog,
     QFormLayout,
     QFrame,
@@ -36,6 +37,7 @@ from zeffir.scene import (
     compare_slices,
     forget_failure,
     length_factor,
+    line_profile,
     orbitals_for,
     pair_scenes,
     plane_of,
@@ -48,8 +50,9 @@ from zeffir.state import OrbitalChoice, Source, ViewState
 from zeffir.ui._about import show_about, show_help
 from zeffir.ui._atom_bar import AtomBar
 from zeffir.ui._controls import ViewControls
+from zeffir.ui._profile_view import ProfileView
 from zeffir.ui._radial_view import RadialView
-from zeffir.ui._slice_view import SliceView
+from zeffir.ui._slice_view import PROFILE_HINT, SliceView
 from zeffir.ui._state_model import StateModel
 from zeffir.ui._subshell_table import SubshellTable
 from zeffir.ui._terms_view import TermsView
@@ -400,6 +403,22 @@ class MainWindow(QMainWindow):
             view.clicked.connect(self._place_reference)
         for trio in (self.radial_trio, self.slice_trio, self.pair_trio, self.two_trio):
             self._link_cursors(trio)
+        self.profile_view = ProfileView()
+        self.profile_dock = QDockWidget("Line profile", self)
+        self.profile_dock.setObjectName("lineProfileDock")
+        self.profile_dock.setToolTip(PROFILE_HINT)
+        self.profile_dock.setWidget(self.profile_view)
+        self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, self.profile_dock)
+        self.profile_dock.hide()  # appears with the first profile
+        self._profile_segment: tuple[str, int, tuple[float, float], tuple[float, float]] | None = None
+        for key in ("slice", "pair", "two-electron"):
+            for index, view in enumerate(self._trios[key].views):
+                view.profile_requested.connect(
+                    lambda u0, v0, u1, v1, k=key, i=index: self._request_profile(
+                        k, i, (u0, v0), (u1, v1)))
+        self.profile_view.cleared.connect(self._clear_profile)
+        self.profile_view.saved.connect(
+            lambda path: self.statusBar().showMessage(f"Saved {path}", 8000))
         guard_wheel(self.atom_bar)
         _name_inputs_by_label(self)
 
@@ -464,6 +483,8 @@ class MainWindow(QMainWindow):
     @Slot(object, object)
     def _on_state_changed(self, new: ViewState, old: ViewState) -> None:
         self._show_state(new)
+        if new.length_unit != old.length_unit:
+            self._clear_profile()  # the segment is in display units
         if (new.left, new.length_unit, _table_versus(new)) != (
                 old.left, old.length_unit, _table_versus(old)):
             self._request_table(new.left)
@@ -593,6 +614,10 @@ class MainWindow(QMainWindow):
             self.notes_area.setText("\n".join(f"• {note}" for note in notes))
             self._refresh_banner()
             return
+        if key == "profile":
+            self.profile_view.show_profile(result)
+            self.profile_dock.show()
+            return
         if key == "export":
             self.last_export = result
             self.statusBar().showMessage(f"Exported {result}", 8000)
@@ -614,6 +639,11 @@ class MainWindow(QMainWindow):
         trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
+        if self._profile_segment is not None and self._profile_segment[0] == key:
+            # The profile follows a new orbital, model or plane under the same segment.
+            _, index, start, end = self._profile_segment
+            shown = parts[min(index, len(parts) - 1)]
+            self.worker.request("profile", lambda s=shown, a=start, b=end: line_profile(s, a, b))
         if key in ("slice", "pair") and drawn_state.slice.fit_extent:
             scale = length_factor(drawn_state.length_unit, 1.0)
             half = float(abs(parts[0].coordinates).max()) / scale
@@ -624,13 +654,17 @@ class MainWindow(QMainWindow):
                 for view in trio.views:
                     view.set_point_of(point_of)
             # Trace after the image has been painted, so the two never compete.
-            QTimer.singleShot(CONTOUR_DELAY_MS, lambda p=parts, k=key: self.worker.request(
+            # The window is the timer's context: a closed window's timer never fires.
+            QTimer.singleShot(CONTOUR_DELAY_MS, self, lambda p=parts, k=key: self.worker.request(
                 f"{k}-contours", lambda: _contour_job(p)))
         self.statusBar().clearMessage()
         self._refresh_banner()
 
     @Slot(str, str)
     def _on_failure(self, key: str, message: str) -> None:
+        if key == "profile":
+            self.statusBar().showMessage(f"No line profile: {message}", 8000)
+            return
         if key == "export":
             self.statusBar().clearMessage()
             QMessageBox.warning(self, "Nothing exported", message)
@@ -649,6 +683,27 @@ class MainWindow(QMainWindow):
     def _on_busy(self, active: bool) -> None:
         self.progress.setVisible(active)
         self.cancel_button.setVisible(active)
+
+    def _request_profile(self, key: str, index: int, start: tuple[float, float],
+                         end: tuple[float, float]) -> None:
+        """Sample the panel the segment was drawn on; show the segment on its row's panels."""
+        for other_key in ("slice", "pair", "two-electron"):
+            for view in self._trios[other_key].views:
+                if other_key == key:
+                    view.set_profile_segment(*start, *end)
+                else:
+                    view.clear_profile()
+        scene = self._trios[key].views[index].current_scene()
+        if scene is None:
+            return
+        self._profile_segment = (key, index, start, end)
+        self.worker.request("profile", lambda s=scene, a=start, b=end: line_profile(s, a, b))
+
+    def _clear_profile(self) -> None:
+        self._profile_segment = None
+        for trio in (self.slice_trio, self.pair_trio, self.two_trio):
+            for view in trio.views:
+                view.clear_profile()
 
     def _select_subshell(self, label: str) -> None:
         current = self.model.state.orbital

@@ -9,9 +9,17 @@ from typing import Any, Final
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import QEvent, QObject, QPointF, QRectF, Qt, QTimer, Signal, Slot
-from PySide6.QtGui import QTextDocument
-from PySide6.QtWidgets import QGraphicsRectItem, QLabel, QSizePolicy, QStackedLayout, QVBoxLayout, QWidget
+from PySide6.QtCore import QEvent, QObject, QPoint, QPointF, QRectF, Qt, QTimer, Signal, Slot
+from PySide6.QtGui import QMouseEvent, QTextDocument
+from PySide6.QtWidgets import (
+    QApplication,
+    QGraphicsRectItem,
+    QLabel,
+    QSizePolicy,
+    QStackedLayout,
+    QVBoxLayout,
+    QWidget,
+)
 
 from zeffir.scene import SliceScene
 from zeffir.ui._plot_style import (
@@ -27,7 +35,7 @@ from zeffir.ui._plot_style import (
     tick_font,
 )
 
-__all__ = ["PointOf", "SliceView"]
+__all__ = ["PROFILE_HINT", "PointOf", "SliceView"]
 
 #: Maps in-plane (u, v) to Cartesian (x, y, z), all in the scene's length unit.
 PointOf = Callable[[float, float], tuple[float, float, float]]
@@ -43,6 +51,19 @@ _LEVEL_WIDTH: Final = 0.9
 _ZERO_WIDTH: Final = 1.6
 _CROSSHAIR_COLOUR: Final = "#1a1a1a"
 _OUTSIDE_COLOUR: Final = "#e4e4e4"
+# The profile segment: a dark line on a white halo reads on both colour maps.
+_SEGMENT_COLOUR: Final = "#111111"
+_SEGMENT_HALO: Final = "#ffffff"
+_SEGMENT_WIDTH: Final = 1.8
+_SEGMENT_HALO_WIDTH: Final = 4.2
+#: How a line profile is drawn, shown as the image's tooltip and in the read-out hint.
+PROFILE_HINT: Final = ("Shift + drag with the left button: draw a line profile (the value along the "
+                       "segment, plotted against the distance from its start, the dark dot).")
+_NAVIGATION_HINT: Final = "Drag: pan · wheel or right-drag: zoom."
+
+
+_MOUSE_EVENTS: Final = frozenset({QEvent.Type.MouseButtonPress, QEvent.Type.MouseMove,
+                                   QEvent.Type.MouseButtonRelease})
 
 
 class SliceView(QWidget):
@@ -62,12 +83,25 @@ class SliceView(QWidget):
         (NaN, NaN) when it leaves. :meth:`show_cursor` does not emit it.
     contours_drawn()
         The contours of the current scene are on screen (or were cleared).
+    clicked(float, float)
+        (u, v) of a left click on the image, in the scene's length unit.
+    profile_requested(float, float, float, float)
+        The user drew a segment for a line profile (Shift + left drag):
+        (start_u, start_v, end_u, end_v) in the scene's length unit. The view draws
+        the segment itself (until :meth:`clear_profile` or another segment);
+        :meth:`set_profile_segment` draws one without emitting.
+
+    Notes
+    -----
+    Shift + left drag draws the segment, so that a plain drag still pans, the
+    wheel zooms and a click (the pair view's reference electron) still clicks.
+    A drag shorter than the platform's drag distance draws nothing.
     """
 
     hovered = Signal(float, float)
     contours_drawn = Signal()
-    #: (u, v) of a left click on the image, in the scene's length unit.
     clicked = Signal(float, float)
+    profile_requested = Signal(float, float, float, float)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -81,6 +115,10 @@ class SliceView(QWidget):
         self._labels: tuple[str, ...] = ()
         self._cursor_shown = False
         self._empty_message = DEFAULT_EMPTY_MESSAGE
+        self._segment: tuple[tuple[float, float], tuple[float, float]] | None = None
+        # A segment being dragged: its start in plane coordinates and the press pixel.
+        self._drag_start: tuple[float, float] | None = None
+        self._drag_pixel = QPoint()
 
         self._graphics = pg.GraphicsLayoutWidget()
         self._graphics.setBackground("w")
@@ -117,6 +155,16 @@ class SliceView(QWidget):
         for item in self._contour_items:
             item.setZValue(5)
             self._plot.addItem(item, ignoreBounds=True)
+        # The line profile's segment: halo, line, and its ends (start dark, end white).
+        self._segment_halo = pg.PlotCurveItem(pen=make_pen(_SEGMENT_HALO, _SEGMENT_HALO_WIDTH),
+                                              antialias=True)
+        self._segment_line = pg.PlotCurveItem(pen=make_pen(_SEGMENT_COLOUR, _SEGMENT_WIDTH),
+                                              antialias=True)
+        self._segment_ends = pg.ScatterPlotItem(size=9, pen=make_pen(_SEGMENT_COLOUR, 1.4))
+        for z, item in enumerate((self._segment_halo, self._segment_line, self._segment_ends)):
+            item.setZValue(16 + z)
+            self._plot.addItem(item, ignoreBounds=True)
+        self._image.setToolTip(f"{PROFILE_HINT}\n{_NAVIGATION_HINT}")
         crosshair = make_pen(_CROSSHAIR_COLOUR, 1.0, Qt.PenStyle.DashLine)
         self._v_line = pg.InfiniteLine(angle=90, movable=False, pen=crosshair)
         self._h_line = pg.InfiniteLine(angle=0, movable=False, pen=crosshair)
@@ -359,12 +407,14 @@ class SliceView(QWidget):
         self._contour_timer.start(_CONTOUR_FALLBACK_MS)
 
     def eventFilter(self, watched: QObject, event: QEvent) -> bool:  # Qt override
-        """Start the contours after a paint of the image; hide the cursor when the pointer leaves."""
+        """Start the contours after a paint; hide the cursor on leave; take Shift + drags."""
         kind = event.type()
         if kind == QEvent.Type.Paint and self._contours_pending:
             self._contour_timer.start(0)
         elif kind == QEvent.Type.Leave:
             self._leave()
+        elif kind in _MOUSE_EVENTS and isinstance(event, QMouseEvent) and self._segment_mouse(event):
+            return True  # a profile segment: pyqtgraph must not also pan or click
         return super().eventFilter(watched, event)
 
     def _draw_contours(self) -> None:
@@ -424,6 +474,135 @@ class SliceView(QWidget):
         for item in self._contour_items:
             item.setData([], [])
         self._contour_levels = ()
+
+    # -- line profile --------------------------------------------------------------------
+
+    def _segment_mouse(self, event: QMouseEvent) -> bool:
+        """Draw a segment from a Shift + left press to the release; True if the event was used."""
+        kind = event.type()
+        pixel = event.position().toPoint()
+        if kind == QEvent.Type.MouseButtonPress:
+            shifted = bool(event.modifiers() & Qt.KeyboardModifier.ShiftModifier)
+            if (self._scene is None or event.button() != Qt.MouseButton.LeftButton or not shifted):
+                return False
+            point = self._plane_point(pixel)
+            if point is None:
+                return False  # on an axis or the colour bar: leave it to pyqtgraph
+            self._drag_start, self._drag_pixel = point, pixel
+            self._graphics.viewport().setCursor(Qt.CursorShape.CrossCursor)
+            self._leave()  # the crosshair would sit at the start and hide the segment's end
+            return True
+        if self._drag_start is None:
+            return False
+        if self._scene is None:  # the scene went away mid-drag (e.g. a failed recompute)
+            self.clear_profile()
+            return True
+        # Once started, the drag is ours whatever the modifiers: letting go of Shift
+        # half-way should not turn the rest of it into a pan.
+        end = self._view_point(pixel)
+        if kind == QEvent.Type.MouseMove:
+            if self._long_enough(pixel):
+                self._show_segment((self._drag_start, end))
+                self._show_segment_readout(self._drag_start, end)
+            return True
+        if kind == QEvent.Type.MouseButtonRelease and event.button() == Qt.MouseButton.LeftButton:
+            start = self._drag_start
+            self._drag_start = None
+            self._graphics.viewport().unsetCursor()
+            if self._long_enough(pixel):
+                self._finish_segment(start, end)
+            else:  # too short to be a segment: keep showing the one kept before, if any
+                self._show_segment(self._segment)
+                self._hide_cursor()
+            return True
+        return True  # other buttons while drawing: ignored, not a pan
+
+    def _long_enough(self, pixel: QPoint) -> bool:
+        return (pixel - self._drag_pixel).manhattanLength() >= QApplication.startDragDistance()
+
+    def _view_point(self, pixel: QPoint) -> tuple[float, float]:
+        """Plane coordinates (u, v) under a viewport pixel."""
+        point = self._plot.getViewBox().mapSceneToView(self._graphics.mapToScene(pixel))
+        return float(point.x()), float(point.y())
+
+    def _plane_point(self, pixel: QPoint) -> tuple[float, float] | None:
+        """(u, v) under a viewport pixel inside the plot area, or None outside it."""
+        box = self._plot.getViewBox()
+        if not box.sceneBoundingRect().contains(self._graphics.mapToScene(pixel)):
+            return None
+        return self._view_point(pixel)
+
+    def _finish_segment(self, start: tuple[float, float], end: tuple[float, float]) -> None:
+        """Keep and draw the drawn segment, then emit :attr:`profile_requested`."""
+        self._segment = (start, end)
+        self._show_segment(self._segment)
+        self._show_segment_readout(start, end)
+        self.profile_requested.emit(start[0], start[1], end[0], end[1])
+
+    def _show_segment(self, segment: tuple[tuple[float, float], tuple[float, float]] | None) -> None:
+        if segment is None:
+            for item in (self._segment_halo, self._segment_line, self._segment_ends):
+                item.setData([], [])
+            return
+        start, end = segment
+        us, vs = [start[0], end[0]], [start[1], end[1]]
+        self._segment_halo.setData(us, vs)
+        self._segment_line.setData(us, vs)
+        self._segment_ends.setData(us, vs, brush=[pg.mkBrush(_SEGMENT_COLOUR), pg.mkBrush(_SEGMENT_HALO)])
+
+    def _show_segment_readout(self, start: tuple[float, float], end: tuple[float, float]) -> None:
+        assert self._scene is not None
+        (u_name, unit), (v_name, _) = (split_label(a) for a in self._scene.axis_labels)
+        length = math.hypot(end[0] - start[0], end[1] - start[1])
+        self._readout.setText(
+            f"Profile from ({html.escape(u_name)}, {html.escape(v_name)}) = "
+            f"({format_number(start[0])}, {format_number(start[1])}) to "
+            f"({format_number(end[0])}, {format_number(end[1])}) {html.escape(unit)}, "
+            f"<b>length {format_number(length)} {html.escape(unit)}</b>")
+
+    @Slot(float, float, float, float)
+    def set_profile_segment(self, start_u: float, start_v: float, end_u: float, end_v: float) -> None:
+        """Draw a profile segment given from elsewhere (e.g. another panel's); emits nothing.
+
+        Parameters
+        ----------
+        start_u, start_v, end_u, end_v : float
+            The ends in the scene's length unit; the start gets the dark dot.
+
+        Raises
+        ------
+        ValueError
+            If an end is not finite.
+        """
+        ends = (float(start_u), float(start_v), float(end_u), float(end_v))
+        if not all(math.isfinite(x) for x in ends):
+            raise ValueError(f"profile segment: the ends must be finite, got {ends}")
+        self._segment = ((ends[0], ends[1]), (ends[2], ends[3]))
+        self._show_segment(self._segment)
+
+    @Slot()
+    def clear_profile(self) -> None:
+        """Remove the profile segment (and stop a segment being dragged)."""
+        self._segment = None
+        if self._drag_start is not None:
+            self._drag_start = None
+            self._graphics.viewport().unsetCursor()
+        self._show_segment(None)
+
+    def profile_segment(self) -> tuple[tuple[float, float], tuple[float, float]] | None:
+        """((start_u, start_v), (end_u, end_v)) of the segment kept, or None."""
+        return self._segment
+
+    def segment_data(self) -> tuple[np.ndarray, np.ndarray]:
+        """(u, v) arrays of the segment line as drawn (empty when none)."""
+        xs, ys = self._segment_line.getData()
+        if xs is None or ys is None:
+            return np.empty(0), np.empty(0)
+        return np.asarray(xs, dtype=float), np.asarray(ys, dtype=float)
+
+    def current_scene(self) -> SliceScene | None:
+        """The scene on screen (what a line profile samples), or None."""
+        return self._scene
 
     # -- linking and cursor --------------------------------------------------------------
 
@@ -526,7 +705,8 @@ class SliceView(QWidget):
         self._v_line.hide()
         self._h_line.hide()
         self._cursor_shown = False
-        hint = "Point at the image to read coordinates and the value." if self._scene is not None else ""
+        hint = ("Point at the image to read coordinates and the value; Shift + drag for a line profile."
+                if self._scene is not None else "")
         self._readout.setText(f'<span style="color:{MUTED_TEXT}">{hint}</span>')
 
     # -- read-back (tests, exports of what is on screen) ----------------------------------
