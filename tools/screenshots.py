@@ -81,6 +81,10 @@ def main(out: Path) -> int:
     window.resize(1600, 1000)
     model.update(left=Source("Ce+", "slater"), view="terms")
     shot("16-terms-ce-plus")
+    model.update(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d", "real", -2), view="slice",
+                 slice=replace(model.state.slice, plane="xy", quantity="psi", fit_extent=True))
+    window.slice_trio.views[0].profile_requested.emit(-4.0, -4.0, 4.0, 4.0)
+    shot("17-slice-with-line-profile")
     window.worker.shutdown()
     return 0
 

@@ -616,7 +616,11 @@ class MainWindow(QMainWindow):
             return
         if key == "profile":
             self.profile_view.show_profile(result)
-            self.profile_dock.show()
+            if self.profile_dock.isHidden():
+                self.profile_dock.show()
+                # A strip under the views, not half the window: the slices keep their room.
+                height = max(160, min(240, self.height() // 4))
+                self.resizeDocks([self.profile_dock], [height], Qt.Orientation.Vertical)
             return
         if key == "export":
             self.last_export = result
