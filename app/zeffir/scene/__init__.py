@@ -4,7 +4,7 @@ The window draws these scenes and the exporters write them, so an exported figur
 or data file holds exactly what is on screen.
 """
 
-from zeffir.scene._build import forget_failure, known_failure, orbitals_for
+from zeffir.scene._build import forget_failure, orbitals_for
 from zeffir.scene._colours import DIVERGING, LINE_COLOURS, SEQUENTIAL, colour_stops, subshell_colour
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
@@ -58,7 +58,6 @@ __all__ = [
     "fitted_extent",
     "forget_failure",
     "hole_integral",
-    "known_failure",
     "length_factor",
     "length_symbol",
     "line_profile",

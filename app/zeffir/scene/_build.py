@@ -12,7 +12,7 @@ from functools import lru_cache
 from zeffir.core import ComputationCancelled, OrbitalSet, ZeffirError, build
 from zeffir.state import Source
 
-__all__ = ["forget_failure", "known_failure", "model_title", "orbitals_for", "short_model_name"]
+__all__ = ["forget_failure", "model_title", "orbitals_for", "short_model_name"]
 
 # Short names for the difference panels' titles, which must fit one narrow panel.
 _SHORT_NAMES = {"hydrogenic": "hydrogenic", "slater": "Slater", "clementi": "Clementi–Raimondi",
@@ -69,11 +69,6 @@ def model_title(name: str) -> str:
 def short_model_name(name: str) -> str:
     """A model's name short enough for a panel title ('HF', 'Slater'); else its title."""
     return _SHORT_NAMES.get(name) or model_title(name)
-
-
-def known_failure(source: Source) -> ZeffirError | None:
-    """The remembered failure of a source, or None."""
-    return _failures.get(_key(source))
 
 
 def forget_failure(source: Source) -> None:
