@@ -152,3 +152,18 @@ def test_pair_densities_follow_the_log_setting():
     low, high = logged.left.colour_range
     assert high - low == pytest.approx(6.0)
     assert logged.left.colour_range == logged.right.colour_range
+
+
+def test_the_log_scale_spans_the_chosen_number_of_decades():
+    from zeffir.scene import slice_scene
+
+    settings = SliceSettings(extent=3.0, resolution=64, log_scale=True, log_decades=3.0,
+                             quantity="density")
+    pair = pair_scenes(_pair_state("Ne", (0.0, 0.0, 0.5)).with_changes(slice=settings).validated())
+    low, high = pair.left.colour_range
+    assert high - low == pytest.approx(3.0)
+    from zeffir.state import OrbitalChoice
+
+    scene = slice_scene(Source("Ne"), OrbitalChoice("2p"), settings)
+    low, high = scene.colour_range
+    assert high - low == pytest.approx(3.0)

@@ -67,3 +67,9 @@ def test_orbital_choice_follows_the_spec():
     assert reconcile_orbital("Fe", OrbitalChoice("3d", "real", -2)).subshell == "3d"
     assert reconcile_orbital("Ne", OrbitalChoice("3d", "real", 2)) == OrbitalChoice("2p", "real", 0)
     assert reconcile_orbital("Ne", OrbitalChoice("2p", "real", 2)).m == 0
+
+
+@pytest.mark.parametrize("decades", [0.5, 17.0, float("inf")])
+def test_log_decades_out_of_range_are_refused_naming_the_field(decades):
+    with pytest.raises(StateError, match=r"slice\.log_decades"):
+        ViewState(slice=SliceSettings(log_decades=decades)).validated()

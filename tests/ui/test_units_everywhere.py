@@ -42,3 +42,14 @@ def test_editing_another_box_does_not_move_lengths_by_rounding(window):
     window.controls._emit_slice()
     assert window.state.slice.contours == 3
     assert window.state.slice.offset == 0.5 and window.state.slice.extent == 6.0
+
+
+def test_the_decades_box_sets_the_log_scale_span(window):
+    window.apply(window.state.with_changes(
+        slice=window.state.slice.__class__(quantity="density", log_scale=True, resolution=48)))
+    assert window.controls.log_decades.isEnabled()
+    window.controls.log_decades.setValue(4.0)
+    window.controls._emit_slice()
+    assert window.state.slice.log_decades == 4.0
+    low, high = window.slice_trio.views[0]._scene.colour_range
+    assert high - low == pytest.approx(4.0)

@@ -116,14 +116,15 @@ def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: 
 
 def _image_scene(base: SliceScene, values: FloatArray, title: str, label: str,
                  signed: bool, contours: int, *, log_scale: bool = False,
-                 robust: bool = True) -> SliceScene:
+                 robust: bool = True, decades: float = LOG_DECADES) -> SliceScene:
     image = values
     if log_scale and not signed:
         peak = float(np.max(values)) if values.size else 0.0
-        floor = peak * 10.0 ** (-LOG_DECADES - 1) if peak > 0 else 1e-300
+        floor = peak * 10.0 ** (-decades - 1) if peak > 0 else 1e-300
         image = np.log10(np.maximum(values, floor))
         label = f"log₁₀ {label}"
-    low, high = colour_scale(image, signed, log_scale and not signed, robust=robust)
+    low, high = colour_scale(image, signed, log_scale and not signed, robust=robust,
+                             decades=decades)
     return replace(
         base, title=title, orbital="", values=values, image=image, signed=signed,
         log_scale=log_scale and not signed, colour_range=(low, high),
@@ -194,14 +195,14 @@ def pair_scenes(state: ViewState) -> PairScenes:
     log_scale, robust = state.slice.log_scale, not state.slice.full_range
     left = _image_scene(base, same, f"{configuration.spec}: other {arrow} electrons",
                         f"ρ₂{arrow}{arrow}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
-                        log_scale=log_scale, robust=robust)
+                        log_scale=log_scale, robust=robust, decades=state.slice.log_decades)
     opposite = "↓" if spin == UP else "↑"
     right = _image_scene(base, other, f"{configuration.spec}: {opposite} electrons",
                          f"ρ₂{arrow}{opposite}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
-                         log_scale=log_scale, robust=robust)
+                         log_scale=log_scale, robust=robust, decades=state.slice.log_decades)
     # One colour scale for both densities, so the two panels compare directly.
     top = max(left.colour_range[1], right.colour_range[1])
-    bottom = top - LOG_DECADES if log_scale else 0.0
+    bottom = top - state.slice.log_decades if log_scale else 0.0
     levels = contour_levels(bottom, top, contours, False)
     left = replace(left, colour_range=(bottom, top), levels=levels)
     right = replace(right, colour_range=(bottom, top), levels=levels)

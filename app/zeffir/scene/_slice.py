@@ -117,8 +117,8 @@ ROBUST_SATURATION = 0.005
 
 
 def colour_scale(image: FloatArray, signed: bool, log_scale: bool,
-                 robust: bool = False) -> tuple[float, float]:
-    """Default colour limits: symmetric about 0 for signed data; top decades for log.
+                 robust: bool = False, decades: float = LOG_DECADES) -> tuple[float, float]:
+    """Default colour limits: symmetric about 0 for signed data; the top ``decades`` for log.
 
     With ``robust``, a linear scale ends at the 99.5th percentile of |value| (taken
     on every 4th pixel each way) rather than at the maximum, so that a nuclear cusp
@@ -142,7 +142,7 @@ def colour_scale(image: FloatArray, signed: bool, log_scale: bool,
         top = top or 1.0
         return (-top, top)
     if log_scale:
-        return (top - LOG_DECADES, top)
+        return (top - decades, top)
     return (0.0, top or 1.0)
 
 
@@ -191,11 +191,13 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
     signed = settings.quantity == "psi"
     log_scale = settings.log_scale and not signed
     if log_scale:
-        floor = float(np.max(values)) * 10.0 ** (-LOG_DECADES - 1) if np.max(values) > 0 else 1e-300
+        decades = settings.log_decades
+        floor = float(np.max(values)) * 10.0 ** (-decades - 1) if np.max(values) > 0 else 1e-300
         image = np.log10(np.maximum(values, floor))
     else:
         image = values
-    low, high = colour_scale(image, signed, log_scale, robust=not settings.full_range)
+    low, high = colour_scale(image, signed, log_scale, robust=not settings.full_range,
+                             decades=settings.log_decades)
     unit = length_symbol(length_unit)
     scale = length_factor(length_unit, 1.0)
     plane_text = _plane_text(settings, unit, scale)

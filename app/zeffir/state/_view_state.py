@@ -107,6 +107,7 @@ class SliceSettings:
     full_range: bool = False  # colour scale to the extreme values (else robust, see scene)
     # Half-width fitted to what is shown (99.9 % of the orbital's charge) instead of ``extent``.
     fit_extent: bool = True
+    log_decades: float = 6.0  # decades below the maximum a logarithmic colour scale spans
 
 
 @dataclass(frozen=True)
@@ -199,6 +200,8 @@ class ViewState:
             raise StateError("slice.offset: must be a number of bohr between -10000 and 10000")
         if not (16 <= s.resolution <= MAX_VIEW_RESOLUTION):
             raise StateError(f"slice.resolution: must be between 16 and {MAX_VIEW_RESOLUTION}")
+        if not (1.0 <= s.log_decades <= 16.0):
+            raise StateError("slice.log_decades: between 1 and 16 decades")
         if not (0 <= s.contours <= 40):
             raise StateError("slice.contours: between 0 and 40 levels")
         _check_choice("orbital.kind", self.orbital.kind, ("real", "complex"))

@@ -163,7 +163,11 @@ class ViewControls(QWidget):
         self.resolution.setKeyboardTracking(False)
         self.resolution.setToolTip(f"Points per side (up to {MAX_VIEW_RESOLUTION})")
         self.log_scale = QCheckBox("Logarithmic colour scale")
-        self.log_scale.setToolTip("For |ψ|² and ρ: six decades below the maximum")
+        self.log_scale.setToolTip("For |ψ|², ρ and the pair densities: the decades below the "
+                                  "maximum set under Decades")
+        self.log_decades = _spin(1.0, 16.0, 1.0, 1, " decades")
+        self.log_decades.setToolTip("How many decades below the maximum a logarithmic colour "
+                                    "scale shows")
         self.full_range = QCheckBox("Colour scale to the extremes")
         self.full_range.setToolTip(
             "Off: the linear scale ends at the 99.5th percentile of |value|, so a nuclear cusp "
@@ -182,13 +186,15 @@ class ViewControls(QWidget):
         form.addRow("Resolution", self.resolution)
         form.addRow("Contours", self.contours)
         form.addRow(self.log_scale)
+        form.addRow("Decades", self.log_decades)
         form.addRow(self.full_range)
         self.slice_quantity.activated.connect(lambda _i: self._emit_slice())
         self.plane.activated.connect(lambda _i: self._emit_slice())
         self.log_scale.toggled.connect(lambda _b: self._emit_slice())
         self.full_range.toggled.connect(lambda _b: self._emit_slice())
         self.fit_extent.toggled.connect(lambda _b: self._emit_slice())
-        for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours):
+        for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours,
+                     self.log_decades):
             spin.valueChanged.connect(lambda _v: self._slice_timer.start())
         return box
 
@@ -276,7 +282,7 @@ class ViewControls(QWidget):
             self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
             self.offset, self.extent, self.resolution, self.log_scale, self.contours,
-            self.full_range, self.fit_extent,
+            self.full_range, self.fit_extent, self.log_decades,
             self.compare_on, self.show_difference, self.same_atom,
         ]
         for widget in widgets:
@@ -305,6 +311,8 @@ class ViewControls(QWidget):
         self.contours.setValue(s.contours)
         self.log_scale.setChecked(s.log_scale)
         self.log_scale.setEnabled(s.quantity != "psi" or state.view == "pair")
+        self.log_decades.setValue(s.log_decades)
+        self.log_decades.setEnabled(s.log_scale and self.log_scale.isEnabled())
         self.full_range.setChecked(s.full_range)
         c = state.compare
         self.compare_on.setChecked(c.enabled)
@@ -405,6 +413,7 @@ class ViewControls(QWidget):
             log_scale=self.log_scale.isChecked(),
             full_range=self.full_range.isChecked(),
             fit_extent=self.fit_extent.isChecked(),
+            log_decades=self.log_decades.value(),
         ))
 
     def _emit_pair(self) -> None:
