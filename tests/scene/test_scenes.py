@@ -112,3 +112,14 @@ def test_subshells_of_one_atom_keep_distinct_colours():
         assert len(set(styles)) == len(styles), element(z).symbol
         if z <= 36:
             assert len({colour for colour, _ in styles}) == len(styles), element(z).symbol
+
+
+def test_the_terms_summary_is_computed_without_qt():
+    import subprocess
+    import sys
+
+    code = ("import sys; sys.modules['PySide6'] = None; sys.modules['pyqtgraph'] = None\n"
+            "from zeffir.scene._terms import terms_summary\n"
+            "s = terms_summary('Eu3+'); print(s.spec)")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "Eu3+"

@@ -91,7 +91,7 @@ def _two_electron_job(state: ViewState) -> Any:
 
 
 def _terms_job(state: ViewState) -> Any:
-    from zeffir.ui._terms_view import terms_summary
+    from zeffir.scene._terms import terms_summary
 
     return terms_summary(state.left.spec)
 
