@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import os
 import sys
+import time
 from dataclasses import replace
 from pathlib import Path
 
@@ -85,7 +86,28 @@ def main(out: Path) -> int:
                  slice=replace(model.state.slice, plane="xy", quantity="psi", fit_extent=True))
     window.slice_trio.views[0].profile_requested.emit(-4.0, -4.0, 4.0, 4.0)
     shot("17-slice-with-line-profile")
+    # Unit switch at 1280×720 while a failed build stands.
+    window.resize(1280, 720)
+    model.update(left=Source("Be-", "hartree-fock"))
+    model.update(length_unit="angstrom")
+    shot("18-failed-build-in-angstrom-1280x720")
     window.worker.shutdown()
+    # A Cancel: a worker-thread window, a long build (Kr, variational) cancelled at once.
+    live = MainWindow(demo_state(), synchronous=False, settings=settings)  # type: ignore[arg-type]
+    live.resize(1280, 720)
+    live.show()
+    for _ in range(200):
+        app.processEvents()
+        if live.problem() is None:
+            break
+        time.sleep(0.02)
+    live.apply(live.state.with_changes(left=Source("Kr", "variational")))
+    live.cancel()
+    for _ in range(20):
+        app.processEvents()
+    live.grab().save(str(out / "19-cancelled-1280x720.png"))
+    print(out / "19-cancelled-1280x720.png")
+    live.worker.shutdown()
     return 0
 
 

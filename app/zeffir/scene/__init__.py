@@ -4,7 +4,7 @@ The window draws these scenes and the exporters write them, so an exported figur
 or data file holds exactly what is on screen.
 """
 
-from zeffir.scene._build import forget_failure, orbitals_for
+from zeffir.scene._build import forget_failure, model_title, orbitals_for, short_model_name
 from zeffir.scene._colours import DIVERGING, LINE_COLOURS, SEQUENTIAL, colour_stops, subshell_colour
 from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
@@ -61,12 +61,14 @@ __all__ = [
     "length_factor",
     "length_symbol",
     "line_profile",
+    "model_title",
     "orbital_name",
     "orbitals_for",
     "pair_scenes",
     "plane_of",
     "radial_range",
     "radial_scene",
+    "short_model_name",
     "slice_scene",
     "subshell_colour",
     "trace_contours",

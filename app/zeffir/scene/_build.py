@@ -14,7 +14,8 @@ from zeffir.state import Source
 
 __all__ = ["forget_failure", "model_title", "orbitals_for", "short_model_name"]
 
-# Short names for the difference panels' titles, which must fit one narrow panel.
+# Short names for panel titles, which must fit one of three panels at 1280 px; the menus,
+# the standing strip and the titles' tooltips use the full titles.
 _SHORT_NAMES = {"hydrogenic": "hydrogenic", "slater": "Slater", "clementi": "Clementi–Raimondi",
                 "variational": "variational", "hartree-fock": "HF",
                 "hartree-fock-average": "HF average"}

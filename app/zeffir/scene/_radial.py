@@ -8,7 +8,7 @@ import numpy as np
 
 from zeffir.core import OrbitalSet, cumulative_charge
 from zeffir.core.orbitals import FloatArray
-from zeffir.scene._build import model_title, orbitals_for
+from zeffir.scene._build import orbitals_for, short_model_name
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
 from zeffir.state import RadialSettings, Source
 
@@ -126,7 +126,7 @@ def radial_scene(source: Source, settings: RadialSettings, length_unit: str = "b
     weighting = "" if settings.quantity in ("R", "P") else (
         ", occupancy-weighted" if settings.weighted else ", per electron")
     return RadialScene(
-        title=f"{orbitals.configuration.spec} — {model_title(source.model)}",
+        title=f"{orbitals.configuration.spec} — {short_model_name(source.model)}",
         spec=orbitals.configuration.spec,
         model=source.model,
         quantity=settings.quantity,

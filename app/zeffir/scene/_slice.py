@@ -8,7 +8,7 @@ import numpy as np
 
 from zeffir.core import Plane, density_on_plane, orbital_density_on_plane, orbital_on_plane
 from zeffir.core.orbitals import FloatArray, real_label
-from zeffir.scene._build import model_title, orbitals_for
+from zeffir.scene._build import orbitals_for, short_model_name
 from zeffir.scene._contours import ContourPaths, stray_zeros, trace_contours
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
 from zeffir.state import OrbitalChoice, SliceSettings, Source
@@ -205,7 +205,7 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
     value_unit = unit_text(length_unit, quantity.length_power)
     label = f"{'log₁₀ ' if log_scale else ''}{quantity.symbol} / {value_unit}"
     return SliceScene(
-        title=f"{orbitals.configuration.spec} — {model_title(source.model)}: {what}",
+        title=f"{orbitals.configuration.spec} — {short_model_name(source.model)}: {what}",
         spec=orbitals.configuration.spec,
         model=source.model,
         orbital=what,

@@ -13,7 +13,7 @@ from PySide6.QtCore import QEvent, QObject, QPointF, QRectF, Qt, Signal, Slot
 from PySide6.QtGui import QTextDocument
 from PySide6.QtWidgets import QLabel, QSizePolicy, QStackedLayout, QVBoxLayout, QWidget
 
-from zeffir.scene import RadialScene
+from zeffir.scene import RadialScene, model_title
 from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     CROSSHAIR_COLOUR,
@@ -359,7 +359,7 @@ class RadialView(QWidget):
             axis = self._plot.getAxis(side)
             axis.setToolTip(tip)
             axis.label.setToolTip(tip)
-        self._plot.titleLabel.setToolTip(f"{scene.spec} under the {scene.model} model")
+        self._plot.titleLabel.setToolTip(f"{scene.spec} under {model_title(scene.model)}")
         self._readout.setToolTip(y_tip)
 
     # -- range and linking ---------------------------------------------------------------

@@ -21,7 +21,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.scene import SliceScene
+from zeffir.scene import SliceScene, model_title
 from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     MUTED_TEXT,
@@ -291,7 +291,8 @@ class SliceView(QWidget):
         )
         if title != self._title.text():
             self._title.setText(title)
-            self._title.setToolTip(f"{scene.spec} under the {scene.model} model; {scene.plane_text}")
+            self._title.setToolTip(f"{scene.spec} under {model_title(scene.model)}; "
+                                   f"{scene.plane_text}")
         labels = (*scene.axis_labels, scene.value_label, scene.quantity)
         if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
             return
