@@ -45,10 +45,12 @@ def main(out: Path) -> int:
     model.update(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d", "real", -2), view="slice")
     model.update(slice=replace(model.state.slice, plane="xy", extent=4.0, resolution=512))
     shot("3-slice-psi")
-    model.update(slice=replace(model.state.slice, quantity="density", log_scale=True))
+    model.update(slice=replace(model.state.slice, quantity="density",
+                               colour=replace(model.state.slice.colour, log_scale=True)))
     shot("4-slice-density-log")
     model.update(left=Source("Na", "hydrogenic"), orbital=OrbitalChoice("3s"),
-                 slice=replace(model.state.slice, quantity="psi", log_scale=False, extent=14.0),
+                 slice=replace(model.state.slice, quantity="psi", extent=14.0,
+                               colour=replace(model.state.slice.colour, log_scale=False)),
                  compare=CompareSettings(True, Source("Na", "clementi"), True))
     shot("5-slice-side-by-side")
     model.update(view="radial", length_unit="angstrom")

@@ -80,7 +80,7 @@ def _parser() -> argparse.ArgumentParser:
 
 def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str]) -> None:
     from zeffir.export import COLUMN_WIDTHS, DPI_RANGE, EXPORT_FORMATS
-    from zeffir.state import RADIAL_QUANTITIES, SLICE_QUANTITIES
+    from zeffir.state import DIVERGING_MAP_NAMES, RADIAL_QUANTITIES, SEQUENTIAL_MAP_NAMES, SLICE_QUANTITIES
 
     figure = commands.add_parser(
         "figure",
@@ -110,11 +110,15 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str])
                         "electrons on the z axis (default radial)")
     figure.add_argument("--model", default=default_model, choices=models,
                         help=f"model (default {default_model})")
-    figure.add_argument("--versus", metavar="B",
+    figure.add_argument("--versus", metavar="B", action="append",
                         help="compare side by side, with the difference: a model name compares "
-                        "models on the same spec; anything else is a second spec under --model")
+                        "models on the same spec; anything else is a second spec under --model. "
+                        "Repeat it for more series (up to five; the difference needs exactly one)")
     figure.add_argument("--no-difference", action="store_true",
                         help="with --versus: leave out the difference panel")
+    figure.add_argument("--overlay", action="store_true",
+                        help="with --versus, radial view: every series' curves on one set of axes "
+                        "(one line style per series)")
     figure.add_argument("--orbital", metavar="LABEL",
                         help="orbital shown: 3s, 2px, 3dxy, 4fxyz (real), or 3p:-1 (complex, m = -1); "
                         "default the outermost subshell. The radial view emphasises its subshell")
@@ -123,7 +127,18 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str])
     figure.add_argument("--per-electron", action="store_true",
                         help="radial D and Q per electron instead of weighted by occupancy")
     figure.add_argument("--log", action="store_true",
-                        help="radial: logarithmic r axis; slice: logarithmic colour scale (psi2, density)")
+                        help="radial: logarithmic r axis; slice (psi2, density), pair, two-electron "
+                        "(radial map): logarithmic colour scale")
+    figure.add_argument("--limits", metavar="MODE", default="robust",
+                        help="slice, pair, two-electron: colour limits: robust (default: the 99.5th "
+                        "percentile), extremes, or LOW,HIGH in the units of the quantity shown "
+                        "(--units; a signed quantity spans -HIGH to HIGH; write --limits=-1,1 for "
+                        "a negative LOW)")
+    figure.add_argument("--colour-map", metavar="NAME",
+                        choices=(*SEQUENTIAL_MAP_NAMES, *DIVERGING_MAP_NAMES),
+                        help="slice, pair, two-electron: colour map; for densities "
+                        f"{', '.join(SEQUENTIAL_MAP_NAMES)} (default viridis), for signed values "
+                        f"and differences {', '.join(DIVERGING_MAP_NAMES)} (default RdBu)")
     figure.add_argument("--r-max", type=float, metavar="R",
                         help="radial: outer end of the r axis, in the --units length (default automatic)")
     figure.add_argument("--no-subshells", action="store_true",
@@ -472,6 +487,8 @@ _STATE_FIELD_OPTIONS = {
     "slice.extent": "--extent",
     "slice.resolution": "--resolution",
     "slice.contours": "--contours",
+    **{f"{part}.colour.{name}": "--limits" for part in ("slice", "pair", "two_electron")
+       for name in ("low", "high")},
 }
 
 
@@ -481,6 +498,7 @@ def figure_state(args: argparse.Namespace) -> ViewState:
 
     from zeffir.core import ZeffirError, model_names, parse_spec
     from zeffir.state import (
+        MAX_SERIES,
         RADIAL_QUANTITIES,
         SLICE_QUANTITIES,
         CompareSettings,
@@ -544,16 +562,20 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         resolution=defaults.resolution if args.resolution is None else args.resolution,
         contours=defaults.contours if args.contours is None else args.contours,
         quantity=slice_quantity,
-        log_scale=bool(args.log) and view == "slice",
     )
     compare = CompareSettings(enabled=False, right=Source(spec, args.model),
                               show_difference=not args.no_difference)
-    if args.versus is not None:
-        versus = args.versus.strip()
-        same_atom = versus in model_names()
-        right = Source(spec, versus) if same_atom else Source(versus, args.model)
-        compare = replace(compare, enabled=True, right=right, same_atom=same_atom)
-    if view in ("pair", "two-electron") and args.versus is not None:
+    if args.versus:
+        if len(args.versus) > MAX_SERIES - 1:
+            raise _InputError(f"--versus: at most {MAX_SERIES - 1} series besides the main one")
+        series = [Source(spec, v.strip()) if v.strip() in model_names() else Source(v.strip(), args.model)
+                  for v in args.versus]
+        same_atom = args.versus[0].strip() in model_names()
+        compare = replace(compare, enabled=True, right=series[0], same_atom=same_atom,
+                          more=tuple(series[1:]), overlay=bool(args.overlay))
+    elif args.overlay:
+        raise _InputError("--overlay: needs --versus (the series to overlay)")
+    if view in ("pair", "two-electron") and args.versus:
         raise _InputError(f"--versus: the {view} view compares its own panels; leave --versus out")
     reference = (0.0, 0.0, 1.0)
     if args.ref is not None:
@@ -576,17 +598,66 @@ def figure_state(args: argparse.Namespace) -> ViewState:
         two_electron=TwoElectronSettings(map=args.map, r_limit=radial.r_limit,
                                          resolution=slice_settings.resolution),
     )
+    state = _with_colour_options(state, args)
     try:
         return state.validated()
     except StateError as error:
         message = str(error)
         field, _, reason = message.partition(": ")
         option = _STATE_FIELD_OPTIONS.get(field)
-        if option is None and field.startswith("compare.right."):
+        if option is None and field.startswith(("compare.right.", "compare.more")):
             option = "--versus"
         raise _InputError(f"{option}: {reason}" if option else message) from None
     except ZeffirError as error:  # pragma: no cover - validation raises StateError
         raise _InputError(str(error)) from None
+
+
+def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewState:
+    """``state`` with ``--log``, ``--limits`` and ``--colour-map`` in the shown view's colour settings.
+
+    Manual limits are typed in the units of the quantity shown (``--units``) and stored
+    in atomic units; a signed quantity spans −HIGH to HIGH.
+    """
+    from dataclasses import replace
+
+    from zeffir.scene import colour_subject, length_factor
+    from zeffir.state import DIVERGING_MAP_NAMES
+
+    limits = str(args.limits).strip().lower()
+    subject = colour_subject(state)
+    if subject is None:
+        if limits != "robust" or args.colour_map is not None:
+            raise _InputError(f"--limits, --colour-map: the {state.view} view has no colour scale")
+        return state
+    colour = subject.colour
+    if args.log and state.view != "slice":  # the slice view refused ψ with --log already
+        if subject.signed:
+            raise _InputError("--log: the collinear map ψ is signed and has no logarithmic scale")
+        colour = replace(colour, log_scale=True)
+    elif args.log:
+        colour = replace(colour, log_scale=True)
+    if args.colour_map is not None:
+        field = "diverging_map" if args.colour_map in DIVERGING_MAP_NAMES else "sequential_map"
+        colour = replace(colour, **{field: args.colour_map})
+    if limits in ("robust", "extremes"):
+        colour = replace(colour, limits=limits)
+    else:
+        low_text, comma, high_text = limits.partition(",")
+        try:
+            low, high = float(low_text), float(high_text)
+        except ValueError:
+            low = high = math.nan
+        if not comma or not (math.isfinite(low) and math.isfinite(high)):
+            raise _InputError(f"--limits {args.limits}: use robust, extremes or LOW,HIGH "
+                              "(e.g. --limits=0,0.05)")
+        if not high > 0 or not (subject.signed or low < high):
+            raise _InputError(f"--limits {args.limits}: HIGH must be above zero and LOW below HIGH")
+        factor = length_factor(state.length_unit, subject.length_power)
+        high /= factor
+        low = -high if subject.signed else low / factor
+        colour = replace(colour, limits="manual", low=low, high=high)
+    part = getattr(state, subject.field)
+    return replace(state, **{subject.field: replace(part, colour=colour)})
 
 
 def _angstrom_per_bohr() -> float:

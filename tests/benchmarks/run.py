@@ -136,6 +136,19 @@ def main() -> int:
     fitted_extent(framed)  # builds and caches the orbital set
     report("fitted_extent_fe_3d", median_seconds(lambda: fitted_extent(framed)) * 1e3, "ms",
            "(no goal)")
+    # (ix) a comparison of four series (orbital sets cached): the radial curves of all four
+    # on one r grid, as a ratio to the four series' own radial scenes made one by one;
+    # goal: sharing the grid costs little.
+    from zeffir.scene import compare_radial, radial_scene
+    from zeffir.state import CompareSettings
+
+    four = ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d"), compare=CompareSettings(
+        True, Source("Fe", "clementi"), more=(Source("", "hydrogenic"), Source("Co", "slater"))))
+    compare_radial(four)  # builds and caches the four orbital sets
+    alone = sum(median_seconds(lambda s=source: radial_scene(s, four.radial, "bohr", "3d"))
+                for source in four.series())
+    many = median_seconds(lambda: compare_radial(four))
+    report("compare_radial_four_series", many / alone, "x the four scenes alone", "<= 1.3")
     window_cases(baseline)
     return 0
 

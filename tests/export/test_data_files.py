@@ -11,9 +11,10 @@ from zeffir import __version__
 from zeffir.core import CODATA_EDITION
 from zeffir.export import ExportError, write_data
 from zeffir.scene import compare_radial, compare_slices, radial_scene, slice_scene
-from zeffir.state import CompareSettings, RadialSettings, SliceSettings, Source, ViewState
+from zeffir.state import ColourSettings, CompareSettings, RadialSettings, SliceSettings, Source, ViewState
 
-SMALL = SliceSettings(plane="xy", extent=6.0, resolution=40, quantity="psi2", log_scale=True)
+SMALL = SliceSettings(plane="xy", extent=6.0, resolution=40, quantity="psi2",
+                      colour=ColourSettings(log_scale=True))
 
 
 @pytest.fixture(scope="module")

@@ -13,7 +13,7 @@ import pytest
 from zeffir.export import COLUMN_WIDTHS, ExportError, write_figure
 from zeffir.export._figures import _draw
 from zeffir.scene import compare_radial, compare_slices, radial_scene, slice_scene
-from zeffir.state import CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
+from zeffir.state import ColourSettings, CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
 
 PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"
 # Below 128 points per side the slices take the plain numpy path: fast, and exact.
@@ -76,7 +76,8 @@ def test_slice_png_and_two_panel_comparison(tmp_path, sliced, state):
 def test_labels_render_without_missing_glyphs(tmp_path):
     # Å, ⁻³ᐟ², ψ, log₁₀ and ⟂ all appear in these labels.
     settings = SliceSettings(plane="custom", normal=(1.0, 1.0, 1.0), offset=0.5, extent=6.0,
-                             resolution=32, quantity="density", log_scale=True)
+                             resolution=32, quantity="density",
+                             colour=ColourSettings(log_scale=True))
     custom = slice_scene(Source("Fe", "slater"), OrbitalChoice("4s"), settings, "angstrom")
     state = ViewState(length_unit="angstrom").validated()
     curves = radial_scene(state.left, state.radial.__class__(quantity="R"), "angstrom", "3s")
@@ -88,7 +89,7 @@ def test_labels_render_without_missing_glyphs(tmp_path):
 
 
 def test_radial_figure_plots_exactly_the_scene_curves(radial):
-    figure = _draw(radial, COLUMN_WIDTHS["single"], True)
+    figure = _draw(radial, COLUMN_WIDTHS["single"])
     lines = {line.get_label(): line for line in figure.axes[0].get_lines()}
     for curve in radial.curves:
         x, y = lines[curve.label].get_data()
@@ -96,12 +97,12 @@ def test_radial_figure_plots_exactly_the_scene_curves(radial):
 
 
 def test_slice_figure_maps_exactly_the_scene_image(sliced, state):
-    figure = _draw(sliced, COLUMN_WIDTHS["single"], True)
+    figure = _draw(sliced, COLUMN_WIDTHS["single"])
     image = figure.axes[0].get_images()[0]
     assert np.array_equal(image.get_array(), sliced.image)
     assert image.get_clim() == sliced.colour_range
     comparison = compare_slices(state)
-    figure = _draw(comparison, COLUMN_WIDTHS["double"], True)
+    figure = _draw(comparison, COLUMN_WIDTHS["double"])
     panels = [ax for ax in figure.axes if ax.get_images()][:3]
     shown = [ax.get_images()[0] for ax in panels]
     for image, scene in zip(shown, (comparison.left, comparison.right, comparison.difference), strict=True):

@@ -91,13 +91,13 @@ def test_two_electron_collinear_npz_holds_the_triplet_line_where_the_electrons_m
     state = ViewState(left=Source("He 1s1 2p1", "hydrogenic"), view="two-electron",
                       two_electron=TwoElectronSettings("collinear", 10.0, 255))
     with np.load(export_view(state, tmp_path / "t.npz"), allow_pickle=False) as data:
-        s1, s2 = _finite(data["right_nodal_u"], data["right_nodal_v"])
+        s1, s2 = _finite(data["triplet_nodal_u"], data["triplet_nodal_v"])
         grid = data["u"]
         metadata = json.loads(str(data["metadata"]))
     meet = np.abs(s1 - s2) <= 1e-9 * grid[-1]
     assert _reaches_both_edges(s1[meet], grid[-1], float(grid[1] - grid[0]))
-    assert metadata["right"]["units"]["values"] == "bohr⁻³"
-    assert metadata["right"]["formula"] == "ψ(s₁ẑ, s₂ẑ)"
+    assert metadata["triplet"]["units"]["values"] == "bohr⁻³"
+    assert metadata["triplet"]["formula"] == "ψ(s₁ẑ, s₂ẑ)"
 
 
 def test_two_electron_radial_npz_has_no_nodal_lines_in_its_distributions(tmp_path):
@@ -105,7 +105,9 @@ def test_two_electron_radial_npz_has_no_nodal_lines_in_its_distributions(tmp_pat
                       two_electron=TwoElectronSettings("radial", 10.0, 64))
     with np.load(export_view(state, tmp_path / "r.npz"), allow_pickle=False) as data:
         # P(r1, r2) >= 0 has no sign to change; only triplet − singlet may.
-        assert data["left_nodal_u"].size == 0 and data["right_nodal_u"].size == 0
+        assert data["singlet_nodal_u"].size == 0 and data["triplet_nodal_u"].size == 0
         assert "difference_nodal_u" in data.files
         metadata = json.loads(str(data["metadata"]))
-    assert metadata["left"]["units"]["values"] == "bohr⁻²"
+    assert metadata["singlet"]["units"]["values"] == "bohr⁻²"
+    assert metadata["panels"] == ["singlet", "triplet", "difference"]
+    assert metadata["kind"] == "zeffir-two-electron-maps"

@@ -16,6 +16,7 @@ from zeffir.export import (
     save_session,
 )
 from zeffir.state import (
+    ColourSettings,
     CompareSettings,
     OrbitalChoice,
     RadialSettings,
@@ -31,7 +32,8 @@ STATE = ViewState(
     length_unit="angstrom",
     radial=RadialSettings(quantity="Q", weighted=False, log_r=True, r_limit=9.5),
     slice=SliceSettings(plane="custom", normal=(1.0, -1.0, 0.5), offset=0.25, extent=5.0,
-                        resolution=96, quantity="psi2", log_scale=True, contours=3),
+                        resolution=96, quantity="psi2", colour=ColourSettings(log_scale=True),
+                        contours=3),
     compare=CompareSettings(True, Source("Fe 1s2 2s2 2p6 3s2 3p6 3d6 4s2", "slater"), False, same_atom=False),
 ).validated()
 

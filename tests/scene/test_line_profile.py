@@ -16,7 +16,7 @@ from zeffir.export._errors import ExportError
 from zeffir.export._profile_data import PROFILE_COLUMNS, PROFILE_SKIPROWS, profile_csv_text, write_profile_csv
 from zeffir.scene import SliceScene, slice_scene
 from zeffir.scene._profile import LineProfile, line_profile, sample_bilinear, values_label
-from zeffir.state import OrbitalChoice, SliceSettings, Source
+from zeffir.state import ColourSettings, OrbitalChoice, SliceSettings, Source
 
 HYDROGEN = Source("H 2p1", "hydrogenic")
 P_Z = OrbitalChoice("2p", "real", 0)
@@ -143,7 +143,8 @@ def test_profile_is_labelled_with_the_scene_and_its_ends(p_z):
 def test_log_scale_profiles_the_values_not_their_logarithm():
     settings = SliceSettings(plane="xz", extent=4.0, resolution=81, quantity="density")
     linear = slice_scene(Source("Ne", "slater"), P_Z, settings)
-    logged = slice_scene(Source("Ne", "slater"), P_Z, replace(settings, log_scale=True))
+    logged = slice_scene(Source("Ne", "slater"), P_Z,
+                         replace(settings, colour=ColourSettings(log_scale=True)))
     assert logged.value_label.startswith("log₁₀ ")
     a = line_profile(linear, (-3.0, -1.0), (3.5, 2.0))
     b = line_profile(logged, (-3.0, -1.0), (3.5, 2.0))

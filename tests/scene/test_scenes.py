@@ -11,6 +11,7 @@ from zeffir.scene import (
     slice_scene,
 )
 from zeffir.state import (
+    ColourSettings,
     CompareSettings,
     OrbitalChoice,
     RadialSettings,
@@ -56,7 +57,7 @@ def test_slice_scene_holds_the_core_values():
 
 
 def test_log_density_scale_spans_the_top_decades():
-    settings = SliceSettings(quantity="density", log_scale=True, resolution=32)
+    settings = SliceSettings(quantity="density", colour=ColourSettings(log_scale=True), resolution=32)
     scene = slice_scene(Source("Ar"), OrbitalChoice("3p"), settings)
     low, high = scene.colour_range
     assert high == pytest.approx(np.log10(scene.values.max()))

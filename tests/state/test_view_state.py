@@ -3,6 +3,7 @@
 import pytest
 
 from zeffir.state import (
+    ColourSettings,
     CompareSettings,
     OrbitalChoice,
     SliceSettings,
@@ -25,7 +26,8 @@ def test_round_trip_keeps_every_field():
         view="slice",
         length_unit="angstrom",
         slice=SliceSettings(plane="custom", normal=(1.0, 1.0, 0.0), offset=0.3, extent=4.0,
-                            resolution=300, quantity="psi2", log_scale=True, contours=5),
+                            resolution=300, quantity="psi2", colour=ColourSettings(log_scale=True),
+                            contours=5),
         compare=CompareSettings(True, Source("Fe3+", "hydrogenic"), False, same_atom=False),
     ).validated()
     assert ViewState.from_dict(state.to_dict()) == state
@@ -71,5 +73,5 @@ def test_orbital_choice_follows_the_spec():
 
 @pytest.mark.parametrize("decades", [0.5, 17.0, float("inf")])
 def test_log_decades_out_of_range_are_refused_naming_the_field(decades):
-    with pytest.raises(StateError, match=r"slice\.log_decades"):
-        ViewState(slice=SliceSettings(log_decades=decades)).validated()
+    with pytest.raises(StateError, match=r"slice\.colour\.log_decades"):
+        ViewState(slice=SliceSettings(colour=ColourSettings(log_decades=decades))).validated()

@@ -194,7 +194,7 @@ def test_the_pair_export_keeps_three_panels_without_the_difference(window, tmp_p
     state = window.state.with_changes(
         view="pair", compare=CompareSettings(False, Source("Na", "clementi"),
                                              show_difference=False)).validated()
-    figure = _draw(view_target(state), 7.0, state.compare.show_difference)
+    figure = _draw(view_target(state), 7.0)
     images = [axes for axes in figure.axes if axes.images]
     assert len(images) == 3
     assert "hole" in images[2].get_title(loc="left").lower()

@@ -14,7 +14,7 @@ from PySide6.QtWidgets import QApplication
 from zeffir.export._profile_data import PROFILE_SKIPROWS
 from zeffir.scene import SliceScene, slice_scene
 from zeffir.scene._profile import line_profile
-from zeffir.state import OrbitalChoice, SliceSettings, Source
+from zeffir.state import ColourSettings, OrbitalChoice, SliceSettings, Source
 from zeffir.ui._profile_view import EMPTY_PROFILE_MESSAGE, ProfileView
 from zeffir.ui._slice_view import PROFILE_HINT, SliceView
 
@@ -31,7 +31,7 @@ def p_z() -> SliceScene:
 def log_density() -> SliceScene:
     """Ne's total density on a log colour scale."""
     return slice_scene(Source("Ne", "slater"), OrbitalChoice("2p"),
-                       replace(SETTINGS, quantity="density", log_scale=True))
+                       replace(SETTINGS, quantity="density", colour=ColourSettings(log_scale=True)))
 
 
 @pytest.fixture

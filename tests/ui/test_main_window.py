@@ -139,7 +139,7 @@ def test_session_round_trip_restores_the_state(qtbot, window, tmp_path):
     assert other.model.state == window.model.state
     np.testing.assert_array_equal(other.slice_trio.views[0].image_data(),
                                   window.slice_trio.views[0].image_data())
-    assert str(path) in other._recent()
+    assert str(path) in other.sessions.recent()
 
 
 @pytest.mark.parametrize("content", ["{not json", json.dumps({"kind": "other"}),

@@ -31,7 +31,7 @@ def test_a_comparison_shows_both_energies(window):
         left=Source("Ne", "hartree-fock"), compare=CompareSettings(True, Source("Ne", "variational"))))
     lines = window.energy_line.text().splitlines()
     assert len(lines) == 2
-    assert "hartree-fock" in lines[0] and lines[1].startswith("versus: Ne") and "variational" in lines[1]
+    assert "hartree-fock" in lines[0] and lines[1].startswith("Ne") and "variational" in lines[1]
 
 
 def test_the_energy_line_follows_the_units(window):

@@ -12,7 +12,7 @@ from PySide6.QtCore import QPointF
 from PySide6.QtTest import QTest
 
 from zeffir.scene import QUANTITIES, SliceScene, slice_scene
-from zeffir.state import OrbitalChoice, SliceSettings, Source
+from zeffir.state import ColourSettings, OrbitalChoice, SliceSettings, Source
 from zeffir.ui._slice_view import DEFAULT_EMPTY_MESSAGE, SliceView
 
 SETTINGS = SliceSettings(plane="xz", extent=3.0, resolution=64, contours=6)
@@ -28,7 +28,7 @@ def p_z() -> SliceScene:
 def density() -> SliceScene:
     """Total density of Ne on a log colour scale (no sign, no zero contour)."""
     return slice_scene(Source("Ne", "slater"), OrbitalChoice("2p"),
-                       replace(SETTINGS, quantity="density", log_scale=True))
+                       replace(SETTINGS, quantity="density", colour=ColourSettings(log_scale=True)))
 
 
 @pytest.fixture

@@ -5,7 +5,7 @@ from __future__ import annotations
 import pytest
 
 from zeffir.core import ANGSTROM_PER_BOHR
-from zeffir.state import OrbitalChoice, PairSettings, SliceSettings, Source, ViewState
+from zeffir.state import ColourSettings, OrbitalChoice, PairSettings, SliceSettings, Source, ViewState
 
 
 @pytest.fixture
@@ -44,12 +44,29 @@ def test_editing_another_box_does_not_move_lengths_by_rounding(window):
     assert window.state.slice.offset == 0.5 and window.state.slice.extent == 6.0
 
 
-def test_the_decades_box_sets_the_log_scale_span(window):
+def test_the_decades_box_sets_the_log_scale_span(qtbot, window):
     window.apply(window.state.with_changes(
-        slice=window.state.slice.__class__(quantity="density", log_scale=True, resolution=48)))
+        slice=window.state.slice.__class__(quantity="density", resolution=48,
+                                           colour=ColourSettings(log_scale=True))))
     assert window.controls.log_decades.isEnabled()
     window.controls.log_decades.setValue(4.0)
-    window.controls._emit_slice()
-    assert window.state.slice.log_decades == 4.0
+    qtbot.waitUntil(lambda: window.state.slice.log_decades == 4.0, timeout=2000)  # after coalescing
     low, high = window.slice_trio.views[0]._scene.colour_range
     assert high - low == pytest.approx(4.0)
+
+
+def test_a_line_profile_follows_a_switch_of_units(make_window):
+    window = make_window(ViewState(left=Source("Ne", "slater"), view="slice",
+                                   slice=SliceSettings(plane="xz", extent=3.0, resolution=48,
+                                                       fit_extent=False)))
+    panel = window.slice_trio.views[0]
+    panel.profile_requested.emit(-2.0, 0.0, 2.0, 0.0)  # as a Shift + drag along x would
+    before = window.profile_view.profile()
+    assert before is not None and "bohr" in window.profile_view.axis_labels()[0]
+    window.apply(window.state.with_changes(length_unit="angstrom"))
+    after = window.profile_view.profile()
+    assert after is not None and "Å" in window.profile_view.axis_labels()[0]
+    (u0, _), (u1, _) = panel.profile_segment()
+    assert u1 - u0 == pytest.approx(4.0 * ANGSTROM_PER_BOHR)  # the same stretch of the atom
+    distance, _values = window.profile_view.curve_data()
+    assert distance[-1] == pytest.approx(4.0 * ANGSTROM_PER_BOHR, rel=1e-6)

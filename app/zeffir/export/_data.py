@@ -19,10 +19,12 @@ from zeffir.export._atomic import atomic_file, write_atomic
 from zeffir.export._errors import ExportError
 from zeffir.scene import (
     QUANTITIES,
+    PairScenes,
     RadialComparison,
     RadialScene,
     SliceComparison,
     SliceScene,
+    TwoElectronScenes,
     unit_text,
 )
 
@@ -38,19 +40,24 @@ CAUTION: Final[str] = (
 )
 
 
-def write_data(target: RadialScene | SliceScene | RadialComparison | SliceComparison,
+#: What a slice-type view computes (one or several image panels).
+SliceTarget = SliceScene | SliceComparison | PairScenes | TwoElectronScenes
+
+
+def write_data(target: RadialScene | RadialComparison | SliceTarget,
                path: str | os.PathLike[str]) -> Path:
     """Write the numbers of a view: ``.csv`` for radial scenes, ``.npz`` for slices.
 
     Parameters
     ----------
-    target : RadialScene, SliceScene, RadialComparison or SliceComparison
+    target : RadialScene, RadialComparison, SliceScene, SliceComparison, PairScenes or TwoElectronScenes
         What the view shows.
     path : str or path-like
         ``.csv`` (radial): ``#`` header lines (spec, model, quantity, units, Zeffir
         version, CODATA edition, caution), one row of column names, then r and one
-        column per curve; comparison columns are prefixed ``left:``, ``right:`` and
-        ``difference:``.
+        column per curve; the columns of a two-series comparison are prefixed
+        ``left:``, ``right:`` and ``difference:``, those of more series
+        ``series 1:``, ``series 2:``….
         ``.npz`` (slice): arrays ``values`` (the quantity in display units, ``[j, i]`` at
         (u_i, v_j)), ``image`` (what is mapped to colours), ``u`` (grid coordinates; v = u),
         ``nodal_u``, ``nodal_v`` (the nodal lines drawn, ψ = 0 of a signed quantity:
@@ -60,7 +67,12 @@ def write_data(target: RadialScene | SliceScene | RadialComparison | SliceCompar
         (= right − left), ``right_image``, ``difference_image`` and the nodal lines
         of each panel (``left_nodal_u``, ``right_nodal_u``, ``difference_nodal_u``
         and their ``_v``), while ``values``, ``image`` and ``nodal_u``/``nodal_v``
-        are the left panel's.
+        are the left panel's. Every panel of a view with several is also written
+        under its panel name: ``{name}_values``, ``{name}_image``,
+        ``{name}_nodal_u``/``_v`` with names ``series_1``, ``series_2``…,
+        ``difference`` (comparisons), ``same_spin``, ``opposite_spin``,
+        ``exchange_hole`` (pair view) or ``singlet``, ``triplet``, ``difference``
+        (two-electron view); the metadata's ``panels`` lists them in drawing order.
 
     Returns
     -------
@@ -76,7 +88,7 @@ def write_data(target: RadialScene | SliceScene | RadialComparison | SliceCompar
     target_path = Path(path)
     suffix = target_path.suffix.lower()
     radial = isinstance(target, RadialScene | RadialComparison)
-    sliced = isinstance(target, SliceScene | SliceComparison)
+    sliced = isinstance(target, SliceTarget)
     if suffix not in DATA_FORMATS:
         raise ExportError(f"{target_path}: data are written as {', '.join(DATA_FORMATS)} "
                           f"(not {suffix or 'a name without suffix'})")
@@ -88,7 +100,7 @@ def write_data(target: RadialScene | SliceScene | RadialComparison | SliceCompar
                           "(.csv holds radial curves)")
     if isinstance(target, RadialScene | RadialComparison):
         return write_atomic(target_path, _radial_csv(target))
-    if isinstance(target, SliceScene | SliceComparison):
+    if isinstance(target, SliceTarget):
         arrays = _slice_arrays(target)
         with atomic_file(target_path) as stream:
             np.savez_compressed(stream, **arrays)
@@ -109,7 +121,11 @@ def _radial_csv(target: RadialScene | RadialComparison) -> str:
         panels = [("", target)]
         head = target
     else:
-        panels = [("left:", target.left), ("right:", target.right), ("difference:", target.difference)]
+        names = (("left:", "right:") if len(target.series) == 2
+                 else tuple(f"series {i + 1}:" for i in range(len(target.series))))
+        panels = list(zip(names, target.series, strict=True))
+        if target.difference is not None:
+            panels.append(("difference:", target.difference))
         head = target.left
     x = _shared_x(panels)
     names = ["r"]
@@ -121,11 +137,10 @@ def _radial_csv(target: RadialScene | RadialComparison) -> str:
     quantity = QUANTITIES[head.quantity]
     lines = ["# Zeffir radial data"]
     if isinstance(target, RadialComparison):
-        lines += [
-            f"# left: spec {target.left.spec}; model {target.left.model}",
-            f"# right: spec {target.right.spec}; model {target.right.model}",
-            "# difference: right − left, curve by curve",
-        ]
+        lines += [f"# {prefix} spec {scene.spec}; model {scene.model}"
+                  for prefix, scene in panels if prefix != "difference:"]
+        if target.difference is not None:
+            lines.append("# difference: right − left, curve by curve")
     else:
         lines += [f"# spec: {head.spec}", f"# model: {head.model}"]
     y_unit = head.y_label.split(" / ", 1)[1] if " / " in head.y_label else head.y_label
@@ -190,6 +205,7 @@ def _slice_metadata(scene: SliceScene) -> dict[str, Any]:
         "signed": scene.signed,
         "log_scale": scene.log_scale,
         "colour_range": [float(v) for v in scene.colour_range],
+        "colour_map": scene.colour_map,
         "contour_levels": [float(v) for v in scene.levels],
     }
 
@@ -209,32 +225,42 @@ def _slice_arrays(target: SliceScene | SliceComparison) -> dict[str, Any]:
         arrays = {"values": target.values, "image": target.image, **_nodal_arrays("", target)}
         coordinates = target.coordinates
     else:
+        panels = list(zip((n.replace(" ", "_") for n in target.panel_names), target.panels,
+                          strict=True))
+        first = panels[0][1]
         metadata = {
-            "kind": "zeffir-slice-comparison",
+            "kind": _SLICE_KINDS[type(target)],
             **common,
-            "arrays": "values, image: left panel; right_values, right_image: right panel; "
-                      "difference = right_values − left_values, difference_image its colour image",
-            "left": _slice_metadata(target.left),
-            "right": _slice_metadata(target.right),
-            "difference": _slice_metadata(target.difference),
+            "arrays": "values, image, nodal_u, nodal_v: the first panel; {name}_values, "
+                      "{name}_image, {name}_nodal_u, {name}_nodal_v: each panel by name",
+            "panels": [name for name, _ in panels],
+            **{name: _slice_metadata(scene) for name, scene in panels},
         }
-        arrays = {
-            "values": target.left.values,
-            "image": target.left.image,
-            "left_values": target.left.values,
-            "right_values": target.right.values,
-            "right_image": target.right.image,
-            "difference": target.difference.values,
-            "difference_image": target.difference.image,
-            **_nodal_arrays("", target.left),
-            **_nodal_arrays("left_", target.left),
-            **_nodal_arrays("right_", target.right),
-            **_nodal_arrays("difference_", target.difference),
-        }
-        coordinates = target.left.coordinates
+        arrays = {"values": first.values, "image": first.image, **_nodal_arrays("", first)}
+        for name, scene in panels:
+            arrays |= {f"{name}_values": scene.values, f"{name}_image": scene.image,
+                       **_nodal_arrays(f"{name}_", scene)}
+        if isinstance(target, SliceComparison) and len(target.series) == 2:
+            # The names of two-series files from before several series existed.
+            metadata["arrays"] += ("; left_*, right_*: the two series; difference = "
+                                   "right_values − left_values")
+            metadata |= {"left": _slice_metadata(target.left), "right": _slice_metadata(target.right)}
+            arrays |= {"left_values": target.left.values, "right_values": target.right.values,
+                       "right_image": target.right.image,
+                       **_nodal_arrays("left_", target.left), **_nodal_arrays("right_", target.right)}
+            if target.difference is not None:
+                arrays["difference"] = target.difference.values
+        coordinates = first.coordinates
     text = json.dumps(metadata, ensure_ascii=False, indent=1)
     return {**{k: np.asarray(v) for k, v in arrays.items()}, "u": np.asarray(coordinates),
             "metadata": np.asarray(text)}
+
+
+_SLICE_KINDS: Final[dict[type, str]] = {
+    SliceComparison: "zeffir-slice-comparison",
+    PairScenes: "zeffir-pair-densities",
+    TwoElectronScenes: "zeffir-two-electron-maps",
+}
 
 
 def _nodal_arrays(prefix: str, scene: SliceScene) -> dict[str, np.ndarray]:

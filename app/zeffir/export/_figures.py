@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import os
 from collections.abc import Sequence
+from dataclasses import replace
 from pathlib import Path
 from typing import TYPE_CHECKING, Any, Final, cast
 
@@ -48,9 +49,12 @@ FIGURE_FORMATS: Final[tuple[str, ...]] = (".png", ".svg", ".pdf")
 #: Accepted resolutions of raster figures, dots per inch.
 DPI_RANGE: Final[tuple[int, int]] = (50, 1200)
 
-Target = RadialScene | SliceScene | RadialComparison | SliceComparison
+Target = RadialScene | SliceScene | RadialComparison | SliceComparison | PairScenes | TwoElectronScenes
 
-_PANEL_LETTERS: Final = "abc"
+_PANEL_LETTERS: Final = "abcdefgh"
+#: matplotlib dash patterns of the series sharing one set of axes (the window's order).
+_SERIES_DASHES: Final[tuple[Any, ...]] = ("-", (0, (5.0, 2.0)), (0, (1.0, 1.3)), (0, (5.0, 1.5, 1.0, 1.5)),
+                                          (0, (8.0, 2.0)), (0, (2.5, 1.5)))
 _TOTAL_WIDTH: Final = 1.3
 _EMPHASIS_WIDTH: Final = 1.5
 _MARKER_WIDTH: Final = 0.6
@@ -62,13 +66,13 @@ _CONTOUR_GREY: Final = "#6e6e6e"
 
 
 def write_figure(target: Target, path: str | os.PathLike[str], *, width: str | None = None,
-                 dpi: int = 300, difference: bool = True) -> Path:
+                 dpi: int = 300, difference: bool | None = None) -> Path:
     """Draw a scene or a comparison as a publication figure; the format follows the suffix.
 
     Parameters
     ----------
-    target : RadialScene, SliceScene, RadialComparison or SliceComparison
-        What the view shows (from :mod:`zeffir.scene`).
+    target : RadialScene, SliceScene, RadialComparison, SliceComparison, PairScenes or TwoElectronScenes
+        What the view shows (from :mod:`zeffir.scene`): every panel it holds is drawn.
     path : str or path-like
         Output file: ``.png`` (raster at ``dpi``), ``.svg`` or ``.pdf`` (vector; the
         slice image is embedded at its own resolution).
@@ -78,8 +82,9 @@ def write_figure(target: Target, path: str | os.PathLike[str], *, width: str | N
     dpi : int
         Dots per inch of the PNG (and of the rasterised parts of vector files),
         between 50 and 1200. A single-column PNG is ``round(3.35 * dpi)`` pixels wide.
-    difference : bool
-        For comparisons: draw the right − left panel (three panels) or not (two).
+    difference : bool, optional
+        For two-series comparisons: ``False`` leaves out the difference panel the
+        comparison holds (the pair and two-electron views always keep their three).
 
     Returns
     -------
@@ -99,15 +104,18 @@ def write_figure(target: Target, path: str | os.PathLike[str], *, width: str | N
             f"(not {suffix or 'a name without suffix'})"
         )
     check_figure_options(width, dpi)
-    comparison = isinstance(target, RadialComparison | SliceComparison)
-    width = width or ("double" if comparison else "single")
-    if not isinstance(target, RadialScene | SliceScene | RadialComparison | SliceComparison):
+    if not isinstance(target, Target):
         raise ExportError(f"{target_path}: cannot draw a {type(target).__name__}")
+    if difference is False and isinstance(target, RadialComparison | SliceComparison):
+        target = replace(target, difference=None)
+    # Comparisons and the three-panel views need the double column (an overlay too: its
+    # legend lists every series).
+    width = width or ("single" if isinstance(target, RadialScene | SliceScene) else "double")
 
     import matplotlib
 
     with matplotlib.rc_context(cast(Any, rc_parameters())):
-        figure = _draw(target, COLUMN_WIDTHS[width], difference)
+        figure = _draw(target, COLUMN_WIDTHS[width])
         metadata = _metadata(suffix)
         with atomic_file(target_path) as stream:
             figure.savefig(stream, format=suffix[1:], dpi=int(dpi), metadata=metadata)
@@ -133,18 +141,29 @@ def _metadata(suffix: str) -> dict[str, Any]:
     return {"Creator": creator, "Date": None}
 
 
-def _draw(target: Target, width: float, difference: bool) -> Figure:
+def _draw(target: Target, width: float) -> Figure:
     if isinstance(target, RadialScene):
         return _radial_figure([target], width, None)
     if isinstance(target, RadialComparison):
-        return _radial_figure([target.left, target.right], width, target.difference if difference else None)
+        if target.overlay is not None:
+            return _radial_figure([target.overlay], width, target.difference)
+        return _radial_figure(list(target.series), width, target.difference)
     if isinstance(target, SliceScene):
         return _slice_figure(target, width)
     if isinstance(target, PairScenes | TwoElectronScenes):
-        # Their third panel (exchange hole; triplet − singlet) is part of the view, not
-        # the comparison's optional difference.
-        return _slice_comparison_figure(target, width, True)
-    return _slice_comparison_figure(target, width, difference)
+        # The first two panels share a colour scale; the third (exchange hole,
+        # triplet − singlet) has its own.
+        return _slice_panels_figure(list(target.panels), 2, width)
+    return _slice_panels_figure(list(target.panels), len(target.series), width)
+
+
+def _grid(count: int, side_by_side: bool) -> tuple[int, int]:
+    """(rows, columns) of ``count`` panels: one row up to three, else two rows; stacked in a column."""
+    if not side_by_side:
+        return count, 1
+    if count <= 3:
+        return 1, count
+    return 2, (count + 1) // 2
 
 
 def _new_figure(width: float, height: float, images: bool = False) -> Figure:
@@ -182,7 +201,7 @@ def _radial_figure(scenes: list[RadialScene], width: float, delta: RadialScene |
         _draw_radial(ax, scene, styles)
         _bottom_at_zero([ax], [scene])
         ax.set_title(scene.title, loc="left", pad=3.0)
-        handles, labels = _legend_entries(scenes, styles, by_label=True)
+        handles, labels = _legend_entries(scenes, styles, by_label=not scene.series_names)
         if len(handles) > 8:
             ax.legend(handles, labels, loc="upper left", bbox_to_anchor=(1.02, 1.0), borderaxespad=0.0)
         else:
@@ -190,24 +209,35 @@ def _radial_figure(scenes: list[RadialScene], width: float, delta: RadialScene |
         return figure
     panels = [*scenes, *([delta] if delta is not None else [])]
     side_by_side = width >= 5
+    rows, columns = _grid(len(panels), side_by_side)
     if side_by_side:
-        figure = _new_figure(width, min(0.36 * width, 3.0) if len(panels) == 3 else 0.42 * width)
-        axes = list(figure.subplots(1, len(panels), sharex=True))
+        row_height = min(0.36 * width, 3.0) if columns == 3 else 0.42 * width
+        figure = _new_figure(width, row_height * rows)
     else:
         # A single column has no room for panels side by side: stack them, sharing r.
         figure = _new_figure(width, 1.75 * len(panels) + 0.5)
-        axes = list(figure.subplots(len(panels), 1, sharex=True))
+    grid = figure.subplots(rows, columns, sharex=True, squeeze=False)
+    axes = [ax for row in grid for ax in row]
+    for spare in axes[len(panels):]:
+        spare.set_visible(False)
+    axes = axes[:len(panels)]
     for ax, scene in zip(axes, scenes, strict=False):
         _draw_radial(ax, scene, styles)
-    # The two sides share one y scale, so equal heights mean equal values.
-    axes[1].sharey(axes[0])
-    axes[0].autoscale()
-    _bottom_at_zero(axes[:2], scenes)
+    # The series share one y scale, so equal heights mean equal values.
+    series_axes = axes[:len(scenes)]
+    for ax in series_axes[1:]:
+        ax.sharey(series_axes[0])
+    series_axes[0].autoscale()
+    _bottom_at_zero(series_axes, scenes)
     if delta is not None:
         _draw_radial(axes[-1], delta, styles, zero_line=True)
     if side_by_side:
-        axes[1].set_ylabel("")
-        axes[1].tick_params(labelleft=False)
+        for index, ax in enumerate(series_axes):
+            if index % columns:
+                ax.set_ylabel("")
+                ax.tick_params(labelleft=False)
+        for ax in axes[:len(axes) - columns]:
+            ax.set_xlabel("")
     else:
         for ax in axes[:-1]:
             ax.set_xlabel("")
@@ -220,7 +250,8 @@ def _radial_figure(scenes: list[RadialScene], width: float, delta: RadialScene |
     # One legend above the panels, so that no panel's curves hide behind it. Subshells keep
     # their colour in every panel; entries name subshells when the two sides' labels differ
     # (another spec, other occupancies).
-    same = [c.label for c in scenes[0].curves] == [c.label for c in scenes[1].curves]
+    same = (all([c.label for c in s.curves] == [c.label for c in scenes[0].curves] for s in scenes)
+            and not scenes[0].series_names)
     handles, labels = _legend_entries(scenes, styles, by_label=same)
     columns = min(len(handles), 10 if side_by_side else 4)
     figure.legend(handles, labels, loc="outside upper center", ncols=columns)
@@ -240,6 +271,8 @@ def _draw_radial(ax: Axes, scene: RadialScene, styles: Styles, zero_line: bool =
     emphasise = scene.highlight is not None and len(scene.curves) > 1
     for order, curve in enumerate(scene.curves):
         style = dict(styles.get(curve.subshell, styles[None]))
+        if scene.series_names:  # several series on these axes: the dash names the series
+            style["linestyle"] = _SERIES_DASHES[curve.series % len(_SERIES_DASHES)]
         if curve.subshell is None:
             style.update(linewidth=_TOTAL_WIDTH, zorder=3.0)
         elif emphasise and curve.subshell == scene.highlight:
@@ -267,6 +300,13 @@ def _draw_radial(ax: Axes, scene: RadialScene, styles: Styles, zero_line: bool =
 def _draw_markers(ax: Axes, scene: RadialScene, styles: Styles) -> None:
     for marker in scene.markers:
         colour = styles.get(marker.subshell, styles[None])["color"]
+        if scene.series_names and marker.kind == "mean":
+            continue  # several series: r_max and nodes only, as in the window
+        if scene.series_names and marker.kind != "node":
+            # Several series: each series' markers in its own line style, not the kind's.
+            ax.axvline(marker.x, color=colour, linewidth=_MARKER_WIDTH, zorder=1.5,
+                       linestyle=_SERIES_DASHES[marker.series % len(_SERIES_DASHES)])
+            continue
         if marker.kind == "node":
             # A short tick rising from the bottom frame at the node's radius.
             ax.plot([marker.x], [0.0], transform=ax.get_xaxis_transform(), linestyle="none",
@@ -293,11 +333,23 @@ def _legend_entries(scenes: Sequence[RadialScene], styles: Styles,
             seen.add(curve.subshell)
             width = (_TOTAL_WIDTH if curve.subshell is None
                      else _EMPHASIS_WIDTH if curve.subshell in emphasised else LINE_WIDTH)
-            handles.append(Line2D([], [], linewidth=width, **styles.get(curve.subshell, styles[None])))
+            style = dict(styles.get(curve.subshell, styles[None]))
+            if scene.series_names:
+                style["linestyle"] = "-"  # colour names the subshell; the series rows follow
+            handles.append(Line2D([], [], linewidth=width, **style))
             labels.append(curve.label if by_label else (curve.subshell or "total"))
-    kinds = [k for k in ("r_max", "mean", "node") if any(m.kind == k for s in scenes for m in s.markers)]
+    for scene in scenes:
+        for index, name in enumerate(scene.series_names):
+            handles.append(Line2D([], [], color="black", linewidth=LINE_WIDTH,
+                                  linestyle=_SERIES_DASHES[index % len(_SERIES_DASHES)]))
+            labels.append(name)
+    several = any(s.series_names for s in scenes)
+    kinds = [k for k in ("r_max", "mean", "node") if any(m.kind == k for s in scenes for m in s.markers)
+             and not (several and k == "mean")]
     for kind in kinds:
-        if kind == "node":
+        if several and kind == "r_max":
+            handles.append(Line2D([], [], color=_GUIDE_GREY, linewidth=_MARKER_WIDTH, linestyle="-"))
+        elif kind == "node":
             handles.append(Line2D([], [], linestyle="none", marker="|", markersize=6.0,
                                   markeredgewidth=1.0, color=_GUIDE_GREY))
         else:
@@ -310,12 +362,13 @@ def _legend_entries(scenes: Sequence[RadialScene], styles: Styles,
 # --- slices -----------------------------------------------------------------------------------
 
 
-def _colour_map(signed: bool) -> Colormap:
+def _colour_map(signed: bool, name: str | None = None) -> Colormap:
+    """The window's map ``name`` (its stops from :func:`zeffir.scene.colour_stops`) for matplotlib."""
     from matplotlib.colors import LinearSegmentedColormap
 
-    positions, colours = colour_stops(signed)
-    name = "zeffir-diverging" if signed else "zeffir-sequential"
-    return LinearSegmentedColormap.from_list(name, list(zip(positions, colours, strict=True)), N=256)
+    positions, colours = colour_stops(signed, name)
+    label = f"zeffir-{name or ('diverging' if signed else 'sequential')}"
+    return LinearSegmentedColormap.from_list(label, list(zip(positions, colours, strict=True)), N=256)
 
 
 def _extent(coordinates: np.ndarray) -> tuple[float, float, float, float]:
@@ -328,7 +381,8 @@ def _extent(coordinates: np.ndarray) -> tuple[float, float, float, float]:
 def _draw_slice(ax: Axes, scene: SliceScene) -> AxesImage:
     low, high = scene.colour_range
     image = ax.imshow(scene.image, origin="lower", extent=_extent(scene.coordinates), aspect="equal",
-                      cmap=_colour_map(scene.signed), vmin=low, vmax=high, interpolation="nearest")
+                      cmap=_colour_map(scene.signed, scene.colour_map), vmin=low, vmax=high,
+                      interpolation="nearest")
     u = scene.coordinates
     finite = scene.image[np.isfinite(scene.image)]
     if scene.levels and finite.size:
@@ -408,36 +462,39 @@ def _slice_figure(scene: SliceScene, width: float) -> Figure:
     return figure
 
 
-def _slice_comparison_figure(target: SliceComparison, width: float, difference: bool) -> Figure:
-    scenes = [target.left, target.right, *([target.difference] if difference else [])]
+def _slice_panels_figure(scenes: list[SliceScene], shared: int, width: float) -> Figure:
+    """Several slice panels: the first ``shared`` on one colour scale, the rest on their own."""
     panels = len(scenes)
     side_by_side = width >= 5
+    rows, columns = _grid(panels, side_by_side)
     if side_by_side:
-        figure = _new_figure(width, width * (0.38 if panels == 3 else 0.5), images=True)
-        axes = list(figure.subplots(1, panels, sharex=True, sharey=True))
+        figure = _new_figure(width, width * (0.38 if columns >= 3 else 0.5) * rows, images=True)
     else:
         # A single column: stack the panels, sharing x.
         figure = _new_figure(width, 0.85 * width * panels, images=True)
-        axes = list(figure.subplots(panels, 1, sharex=True, sharey=True))
+    grid = figure.subplots(rows, columns, sharex=True, sharey=True, squeeze=False)
+    axes = [ax for row in grid for ax in row]
+    for spare in axes[panels:]:
+        spare.set_visible(False)
+    axes = axes[:panels]
     images = [_draw_slice(ax, scene) for ax, scene in zip(axes, scenes, strict=True)]
-    for ax in axes[1:] if side_by_side else axes[:-1]:
-        if side_by_side:
+    for index, ax in enumerate(axes):
+        if index % columns:
             ax.set_ylabel("")
             ax.tick_params(labelleft=False)
-        else:
+        if index < panels - columns:
             ax.set_xlabel("")
             ax.tick_params(labelbottom=False)
-    # Left and right share one colour scale, hence one bar beside the pair; the difference
-    # has its own. Stacked in a single column, each panel carries a bar (a's and b's equal).
-    if side_by_side:
-        _colour_bar(figure, images[0], axes[1], target.left.value_label)
-    else:
-        _colour_bar(figure, images[0], axes[0], target.left.value_label)
-        _colour_bar(figure, images[1], axes[1], target.right.value_label)
-    if difference:
-        _colour_bar(figure, images[2], axes[2], target.difference.value_label)
+    # Panels on one colour scale carry one bar at the end of each row they fill; a panel
+    # with its own scale (a difference, the exchange hole) has its own bar. Stacked in a
+    # single column, every panel carries a bar.
+    for index, (ax, image, scene) in enumerate(zip(axes, images, scenes, strict=True)):
+        own = index >= shared
+        row_end = index % columns == columns - 1 or index == shared - 1
+        if own or not side_by_side or row_end:
+            _colour_bar(figure, image, ax, scene.value_label)
     for index, (ax, scene) in enumerate(zip(axes, scenes, strict=True)):
         ax.set_title(f"({_PANEL_LETTERS[index]}) {scene.title}", loc="left", pad=3.0)
-    figure.suptitle(target.left.plane_text, fontsize=TICK_SIZE, x=0.01, ha="left")
+    figure.suptitle(scenes[0].plane_text, fontsize=TICK_SIZE, x=0.01, ha="left")
     _trim_height(figure)
     return figure

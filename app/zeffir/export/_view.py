@@ -9,15 +9,7 @@ from typing import Final
 from zeffir.export._data import DATA_FORMATS, write_data
 from zeffir.export._errors import ExportError
 from zeffir.export._figures import FIGURE_FORMATS, Target, check_figure_options, write_figure
-from zeffir.scene import (
-    compare_radial,
-    compare_slices,
-    pair_scenes,
-    radial_scene,
-    slice_scene,
-    two_electron_scenes,
-    with_fitted_extent,
-)
+from zeffir.scene import FIGURE_VIEWS, view_scene
 from zeffir.state import ViewState
 
 __all__ = ["EXPORT_FORMATS", "export_view", "view_target"]
@@ -27,30 +19,20 @@ EXPORT_FORMATS: Final[tuple[str, ...]] = (*FIGURE_FORMATS, *DATA_FORMATS)
 
 
 def view_target(state: ViewState) -> Target:
-    """The scene (or comparison) the current view of ``state`` draws.
+    """The scenes the current view of ``state`` draws (:func:`zeffir.scene.view_scene`).
 
     Parameters
     ----------
     state : ViewState
-        Validated view state; ``state.view`` picks radial or slice, and
-        ``state.compare.enabled`` a side-by-side comparison.
+        Validated view state; ``state.view`` picks the view, ``state.compare`` the series.
 
     Returns
     -------
-    RadialScene, SliceScene, RadialComparison or SliceComparison
+    RadialScene, SliceScene, RadialComparison, SliceComparison, PairScenes or TwoElectronScenes
     """
-    state = with_fitted_extent(state)
-    if state.view == "pair":
-        return pair_scenes(state)
-    if state.view == "two-electron":
-        return two_electron_scenes(state)
-    if state.view == "radial":
-        if state.compare.enabled:
-            return compare_radial(state)
-        return radial_scene(state.left, state.radial, state.length_unit, state.orbital.subshell)
-    if state.compare.enabled:
-        return compare_slices(state)
-    return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
+    if state.view not in FIGURE_VIEWS:
+        raise ExportError(f"the {state.view} view draws no figure")
+    return view_scene(state)  # type: ignore[no-any-return]
 
 
 def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | None = None,
@@ -105,5 +87,4 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
     target = view_target(state)
     if suffix in DATA_FORMATS:
         return write_data(target, target_path)
-    return write_figure(target, target_path, width=width, dpi=dpi,
-                        difference=state.compare.show_difference)
+    return write_figure(target, target_path, width=width, dpi=dpi)

@@ -5,8 +5,24 @@ or data file holds exactly what is on screen.
 """
 
 from zeffir.scene._build import forget_failure, model_title, orbitals_for, short_model_name
-from zeffir.scene._colours import DIVERGING, LINE_COLOURS, SEQUENTIAL, colour_stops, subshell_colour
-from zeffir.scene._compare import RadialComparison, SliceComparison, compare_radial, compare_slices
+from zeffir.scene._colours import (
+    DIVERGING,
+    DIVERGING_MAPS,
+    LINE_COLOURS,
+    MAP_TITLES,
+    SEQUENTIAL,
+    SEQUENTIAL_MAPS,
+    colour_stops,
+    sign_colours,
+    subshell_colour,
+)
+from zeffir.scene._compare import (
+    RadialComparison,
+    SliceComparison,
+    compare_radial,
+    compare_slices,
+    series_names,
+)
 from zeffir.scene._contours import CONTOUR_POINTS, ContourPaths, trace_contours
 from zeffir.scene._framing import fitted_extent, with_fitted_extent
 from zeffir.scene._pairs import (
@@ -22,22 +38,41 @@ from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length
 from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import (
     LOG_DECADES,
+    ColourSubject,
     SliceScene,
+    colour_range,
     colour_scale,
+    colour_subject,
     contour_levels,
+    manual_range,
     orbital_name,
     plane_of,
     slice_scene,
+)
+from zeffir.scene._views import (
+    FIGURE_VIEWS,
+    VIEW_RECIPES,
+    ViewRecipe,
+    ViewScenes,
+    panels_of,
+    view_inputs,
+    view_scene,
 )
 
 __all__ = [
     "CONTOUR_POINTS",
     "DIVERGING",
+    "DIVERGING_MAPS",
+    "FIGURE_VIEWS",
     "LINE_COLOURS",
     "LOG_DECADES",
+    "MAP_TITLES",
     "PROFILE_POINTS",
     "QUANTITIES",
     "SEQUENTIAL",
+    "SEQUENTIAL_MAPS",
+    "VIEW_RECIPES",
+    "ColourSubject",
     "ContourPaths",
     "Curve",
     "LineProfile",
@@ -49,8 +84,12 @@ __all__ = [
     "SliceComparison",
     "SliceScene",
     "TwoElectronScenes",
+    "ViewRecipe",
+    "ViewScenes",
+    "colour_range",
     "colour_scale",
     "colour_stops",
+    "colour_subject",
     "compare_radial",
     "compare_slices",
     "contour_levels",
@@ -61,18 +100,24 @@ __all__ = [
     "length_factor",
     "length_symbol",
     "line_profile",
+    "manual_range",
     "model_title",
     "orbital_name",
     "orbitals_for",
     "pair_scenes",
+    "panels_of",
     "plane_of",
     "radial_range",
     "radial_scene",
+    "series_names",
     "short_model_name",
+    "sign_colours",
     "slice_scene",
     "subshell_colour",
     "trace_contours",
     "two_electron_scenes",
     "unit_text",
+    "view_inputs",
+    "view_scene",
     "with_fitted_extent",
 ]

@@ -11,7 +11,7 @@ slice views and the figure exporter draw them unchanged.
 from __future__ import annotations
 
 from dataclasses import dataclass, replace
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, ClassVar
 
 import numpy as np
 from numpy.polynomial.legendre import leggauss
@@ -19,17 +19,18 @@ from numpy.polynomial.legendre import leggauss
 from zeffir.core import OrbitalSet, ZeffirError
 from zeffir.core.orbitals import FloatArray
 from zeffir.scene._build import orbitals_for
-from zeffir.scene._compare import SliceComparison
 from zeffir.scene._quantities import length_factor, length_symbol, unit_text
 from zeffir.scene._slice import (
-    LOG_DECADES,
     ROBUST_SATURATION,
     SliceScene,
-    colour_scale,
+    colour_range,
     contour_levels,
+    log_image,
     plane_of,
 )
-from zeffir.state import ViewState
+from zeffir.state import ColourSettings, ViewState
+
+_ROBUST = ColourSettings()  # robust and linear: what the panels drew before they had settings
 
 if TYPE_CHECKING:  # the pairs package is imported when a pair view is first computed
     from zeffir.core.pairs import Determinant
@@ -41,11 +42,15 @@ __all__ = ["PairScenes", "TwoElectronScenes", "determinant_for", "hole_integral"
 
 
 @dataclass(frozen=True)
-class PairScenes(SliceComparison):
+class PairScenes:
     """Same-spin and opposite-spin densities (shared colour scale) and the exchange hole.
 
     Attributes
     ----------
+    same_spin, opposite_spin : SliceScene
+        ρ₂^{σσ}(r1, r2)/ρ^σ(r1) and ρ₂^{σσ'}(r1, r2)/ρ^σ(r1) on the plane.
+    exchange_hole : SliceScene
+        h_x^σ(r1; r2) (values ≤ 0; its image is the depth −h on a one-sided scale).
     reference : (float, float, float)
         r1 in bohr.
     spin : str
@@ -58,18 +63,40 @@ class PairScenes(SliceComparison):
         The determinant used, in the determinant syntax.
     """
 
+    same_spin: SliceScene
+    opposite_spin: SliceScene
+    exchange_hole: SliceScene
     reference: tuple[float, float, float] = (0.0, 0.0, 0.0)
     spin: str = "up"
     hole_integral: float = float("nan")
     hole_depth: float = float("nan")
     determinant: str = ""
 
+    #: Panel names, in drawing order.
+    panel_names: ClassVar[tuple[str, ...]] = ("same_spin", "opposite_spin", "exchange_hole")
+
+    @property
+    def panels(self) -> tuple[SliceScene, ...]:
+        """The three panels in drawing order."""
+        return self.same_spin, self.opposite_spin, self.exchange_hole
+
 
 @dataclass(frozen=True)
-class TwoElectronScenes(SliceComparison):
+class TwoElectronScenes:
     """Singlet and triplet maps (shared colour scale) and triplet − singlet."""
 
+    singlet: SliceScene
+    triplet: SliceScene
+    difference: SliceScene
     map_kind: str = "radial"
+
+    #: Panel names, in drawing order.
+    panel_names: ClassVar[tuple[str, ...]] = ("singlet", "triplet", "difference")
+
+    @property
+    def panels(self) -> tuple[SliceScene, ...]:
+        """The three panels in drawing order."""
+        return self.singlet, self.triplet, self.difference
 
 
 def determinant_for(orbitals: OrbitalSet, text: str) -> Determinant:
@@ -115,22 +142,48 @@ def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: 
 
 
 def _image_scene(base: SliceScene, values: FloatArray, title: str, label: str,
-                 signed: bool, contours: int, *, log_scale: bool = False,
-                 robust: bool = True, decades: float = LOG_DECADES) -> SliceScene:
+                 signed: bool, contours: int, *, colour: ColourSettings = _ROBUST,
+                 factor: float = 1.0) -> SliceScene:
+    """A panel of ``values`` (display units; ``factor`` per atomic unit) on ``colour``'s scale."""
+    log_scale = colour.log_scale and not signed
     image = values
-    if log_scale and not signed:
-        peak = float(np.max(values)) if values.size else 0.0
-        floor = peak * 10.0 ** (-decades - 1) if peak > 0 else 1e-300
-        image = np.log10(np.maximum(values, floor))
+    if log_scale:
+        image = log_image(values, colour, factor)
         label = f"log₁₀ {label}"
-    low, high = colour_scale(image, signed, log_scale and not signed, robust=robust,
-                             decades=decades)
+    low, high = colour_range(image, signed, log_scale, colour, factor)
     return replace(
         base, title=title, orbital="", values=values, image=image, signed=signed,
-        log_scale=log_scale and not signed, colour_range=(low, high),
+        log_scale=log_scale, colour_range=(low, high),
         levels=contour_levels(low, high, contours, signed),
         zero_contour=signed, value_label=label, contours=None,
+        sequential_map=colour.sequential_map, diverging_map=colour.diverging_map,
+        value_factor=factor,
     )
+
+
+def _shared_range(panels: tuple[SliceScene, SliceScene], colour: ColourSettings) -> tuple[float, float]:
+    """One colour scale for two panels that compare directly.
+
+    Manual limits are the same for both already. Otherwise the range covering both;
+    a log scale keeps its span of decades below the higher top.
+    """
+    if colour.limits == "manual":
+        return panels[0].colour_range
+    low = min(p.colour_range[0] for p in panels)
+    high = max(p.colour_range[1] for p in panels)
+    if panels[0].log_scale:
+        low = high - colour.log_decades
+    return low, high
+
+
+def _difference_colour(colour: ColourSettings) -> ColourSettings:
+    """A difference panel's own symmetric scale: robust, or extremes if the view asks for them.
+
+    Manual limits are values of the quantity, not of a difference (often far smaller),
+    so under manual limits a difference panel keeps the robust scale.
+    """
+    return replace(colour, limits="extremes" if colour.limits == "extremes" else "robust",
+                   log_scale=False)
 
 
 def _hole_scene(base: SliceScene, hole: FloatArray, title: str, label: str, contours: int,
@@ -189,20 +242,22 @@ def pair_scenes(state: ViewState) -> PairScenes:
         plane_text=f"{_plane_words(state)}; reference electron {arrow} at ({where}) {symbol}",
         axis_labels=_axes(state, symbol), value_label="", length_unit=unit, values=same, image=same,
         coordinates=plane.coordinates() * scale, signed=False, log_scale=False, colour_range=(0.0, 1.0),
-        levels=(), zero_contour=False,
+        levels=(), zero_contour=False, sequential_map=state.pair.colour.sequential_map,
+        diverging_map=state.pair.colour.diverging_map, value_factor=density,
     )
     contours = state.slice.contours
-    log_scale, robust = state.slice.log_scale, not state.slice.full_range
+    colour = state.pair.colour
+    # The exchange hole keeps its own one-sided scale: robust unless extremes are asked for.
+    robust = colour.limits != "extremes"
     left = _image_scene(base, same, f"{configuration.spec}: other {arrow} electrons",
                         f"ρ₂{arrow}{arrow}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
-                        log_scale=log_scale, robust=robust, decades=state.slice.log_decades)
+                        colour=colour, factor=density)
     opposite = "↓" if spin == UP else "↑"
     right = _image_scene(base, other, f"{configuration.spec}: {opposite} electrons",
                          f"ρ₂{arrow}{opposite}(r₁, r₂)/ρ{arrow}(r₁) / {density_unit}", False, contours,
-                         log_scale=log_scale, robust=robust, decades=state.slice.log_decades)
+                         colour=colour, factor=density)
     # One colour scale for both densities, so the two panels compare directly.
-    top = max(left.colour_range[1], right.colour_range[1])
-    bottom = top - state.slice.log_decades if log_scale else 0.0
+    bottom, top = _shared_range((left, right), colour)
     levels = contour_levels(bottom, top, contours, False)
     left = replace(left, colour_range=(bottom, top), levels=levels)
     right = replace(right, colour_range=(bottom, top), levels=levels)
@@ -217,7 +272,8 @@ def pair_scenes(state: ViewState) -> PairScenes:
 
     marker = _marker_of(state, r1)
     left, right, difference = (replace(s, marker=marker) for s in (left, right, difference))
-    return PairScenes(left, right, difference, reference=tuple(float(c) for c in r1),  # type: ignore[arg-type]
+    return PairScenes(same_spin=left, opposite_spin=right, exchange_hole=difference,
+                      reference=tuple(float(c) for c in r1),  # type: ignore[arg-type]
                       spin=state.pair.spin, hole_integral=integral, hole_depth=depth,
                       determinant=format_determinant(determinant))
 
@@ -246,7 +302,8 @@ def two_electron_scenes(state: ViewState) -> TwoElectronScenes:
     if settings.map == "radial":
         r = np.linspace(0.0, top, k)
         maps = [s.radial_map(r, r).T for s in (singlet, triplet)]  # [j, i] = (r2 = r[j], r1 = r[i])
-        maps = [m * length_factor(unit, -2.0) for m in maps]
+        factor = length_factor(unit, -2.0)
+        maps = [m * factor for m in maps]
         coordinates = r * scale
         label = f"P(r₁, r₂) / {unit_text(unit, -2.0)}"
         axes = (f"r₁ / {symbol}", f"r₂ / {symbol}")
@@ -257,7 +314,8 @@ def two_electron_scenes(state: ViewState) -> TwoElectronScenes:
         # exactly 0 with opposite signs either side; the nodal tracing keeps such
         # zeros (see SliceScene.zero_contour_field), so that line is drawn too.
         s = np.linspace(-top, top, k)
-        maps = [np.real(st.collinear_map(s, s)).T * length_factor(unit, -3.0) for st in (singlet, triplet)]
+        factor = length_factor(unit, -3.0)
+        maps = [np.real(st.collinear_map(s, s)).T * factor for st in (singlet, triplet)]
         coordinates = s * scale
         label = f"ψ(s₁ẑ, s₂ẑ) / {unit_text(unit, -3.0)}"
         axes = (f"s₁ / {symbol} (along z)", f"s₂ / {symbol} (along z)")
@@ -271,16 +329,20 @@ def two_electron_scenes(state: ViewState) -> TwoElectronScenes:
         log_scale=False, colour_range=(0.0, 1.0), levels=(), zero_contour=signed,
     )
     contours = state.slice.contours
-    one = _image_scene(base, maps[0], f"{configuration.spec}: singlet (S = 0)", label, signed, contours)
-    three = _image_scene(base, maps[1], f"{configuration.spec}: triplet (S = 1)", label, signed, contours)
-    low = min(one.colour_range[0], three.colour_range[0])
-    high = max(one.colour_range[1], three.colour_range[1])
+    colour = settings.colour
+    one = _image_scene(base, maps[0], f"{configuration.spec}: singlet (S = 0)", label, signed, contours,
+                       colour=colour, factor=factor)
+    three = _image_scene(base, maps[1], f"{configuration.spec}: triplet (S = 1)", label, signed, contours,
+                         colour=colour, factor=factor)
+    low, high = _shared_range((one, three), colour)
     levels = contour_levels(low, high, contours, signed)
     one = replace(one, colour_range=(low, high), levels=levels)
     three = replace(three, colour_range=(low, high), levels=levels)
     delta = maps[1] - maps[0]
-    diff = _image_scene(base, delta, "triplet − singlet", f"Δ{label}", True, contours)
-    return TwoElectronScenes(one, three, diff, map_kind=settings.map)
+    # Triplet − singlet on its own symmetric scale (see _difference_colour).
+    diff = _image_scene(base, delta, "triplet − singlet", f"Δ{label}", True, contours,
+                        colour=_difference_colour(colour), factor=factor)
+    return TwoElectronScenes(singlet=one, triplet=three, difference=diff, map_kind=settings.map)
 
 
 def _marker_of(state: ViewState, r1: FloatArray) -> tuple[float, float] | None:

@@ -25,6 +25,7 @@ class Curve:
     subshell: str | None
     x: FloatArray
     y: FloatArray
+    series: int = 0  # index into RadialScene.series_names when several series share the axes
 
 
 @dataclass(frozen=True)
@@ -34,6 +35,7 @@ class Marker:
     subshell: str
     kind: str
     x: float
+    series: int = 0
 
 
 @dataclass(frozen=True)
@@ -51,6 +53,9 @@ class RadialScene:
     curves: tuple[Curve, ...]
     markers: tuple[Marker, ...]
     highlight: str | None
+    #: Names of the series whose curves share these axes (empty: one series). A curve's
+    #: line style follows its series; its colour, its subshell.
+    series_names: tuple[str, ...] = ()
 
 
 def radial_range(orbitals: OrbitalSet, settings: RadialSettings) -> tuple[float, float]:

@@ -2,18 +2,28 @@
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, replace
 
 import numpy as np
 
-from zeffir.core import Plane, density_on_plane, orbital_density_on_plane, orbital_on_plane
+from zeffir.core import Plane, ZeffirError, density_on_plane, orbital_density_on_plane, orbital_on_plane
 from zeffir.core.orbitals import FloatArray, real_label
 from zeffir.scene._build import orbitals_for, short_model_name
 from zeffir.scene._contours import ContourPaths, stray_zeros, trace_contours
 from zeffir.scene._quantities import QUANTITIES, length_factor, length_symbol, unit_text
-from zeffir.state import OrbitalChoice, SliceSettings, Source
+from zeffir.state import (
+    DEFAULT_DIVERGING_MAP,
+    DEFAULT_SEQUENTIAL_MAP,
+    ColourSettings,
+    OrbitalChoice,
+    SliceSettings,
+    Source,
+    ViewState,
+)
 
-__all__ = ["LOG_DECADES", "SliceScene", "orbital_name", "plane_of", "slice_scene"]
+__all__ = ["LOG_DECADES", "ColourSubject", "SliceScene", "colour_range", "colour_subject", "log_image",
+           "manual_range", "orbital_name", "plane_of", "slice_scene"]
 
 #: Decades shown below the maximum on a logarithmic colour scale.
 LOG_DECADES = 6.0
@@ -37,6 +47,11 @@ class SliceScene:
         Limits of the colour scale in ``image`` units.
     levels : tuple of float
         Contour levels in ``image`` units (the zero level, for ψ, is drawn apart).
+    sequential_map, diverging_map : str
+        The view's colour maps (names in :mod:`zeffir.scene._colours`); which one
+        draws this scene follows ``signed`` (see :attr:`colour_map`).
+    value_factor : float
+        Display units per atomic unit of the quantity (``values`` = atomic × factor).
     """
 
     title: str
@@ -58,6 +73,26 @@ class SliceScene:
     zero_contour: bool
     contours: ContourPaths | None = None
     marker: tuple[float, float] | None = None  # (u, v) of a point to mark, display units
+    sequential_map: str = DEFAULT_SEQUENTIAL_MAP
+    diverging_map: str = DEFAULT_DIVERGING_MAP
+    value_factor: float = 1.0
+
+    @property
+    def colour_map(self) -> str:
+        """The map that draws this scene: the diverging one when signed, else the sequential one."""
+        return self.diverging_map if self.signed else self.sequential_map
+
+    @property
+    def value_limits(self) -> tuple[float, float]:
+        """The colour scale's ends as values of the quantity, in atomic units.
+
+        What :class:`~zeffir.state.ColourSettings` ``low`` and ``high`` must be for a
+        manual scale to draw this very picture (10** of the range on a log scale).
+        """
+        low, high = self.colour_range
+        if self.log_scale:
+            low, high = 10.0**low, 10.0**high
+        return low / self.value_factor, high / self.value_factor
 
     def with_contours(self) -> SliceScene:
         """This scene with its contour lines traced (see :func:`trace_contours`)."""
@@ -146,6 +181,116 @@ def colour_scale(image: FloatArray, signed: bool, log_scale: bool,
     return (0.0, top or 1.0)
 
 
+def manual_range(colour: ColourSettings, signed: bool, log_scale: bool,
+                 factor: float = 1.0) -> tuple[float, float]:
+    """The colour limits typed by the user, in ``image`` units.
+
+    Parameters
+    ----------
+    colour : ColourSettings
+        ``low`` and ``high`` are values of the quantity in atomic units.
+    signed : bool
+        A signed quantity keeps a symmetric scale: −high to high (``low`` unused).
+    log_scale : bool
+        The image holds log10 of the values: the limits are mapped through log10;
+        ``low`` ≤ 0 stands for ``log_decades`` below ``high``.
+    factor : float
+        Display units per atomic unit of the quantity (see :func:`length_factor`).
+
+    Raises
+    ------
+    ZeffirError
+        ``high`` is not a positive finite number, or ``low`` is not below it
+        (:meth:`ColourSettings.check` refuses such a state first).
+
+    Examples
+    --------
+    >>> manual_range(ColourSettings("manual", 1e-4, 1.0, log_scale=True), False, True)
+    (-4.0, 0.0)
+    """
+    low, high = colour.low * factor, colour.high * factor
+    if not (math.isfinite(high) and high > 0 and math.isfinite(low) and low < high):
+        raise ZeffirError(f"colour limits: low {colour.low:g} and high {colour.high:g} must be finite "
+                          "with low < high and high > 0")
+    if signed:
+        return (-high, high)
+    if log_scale:
+        top = math.log10(high)
+        return (math.log10(low) if low > 0 else top - colour.log_decades, top)
+    return (low, high)
+
+
+def colour_range(image: FloatArray, signed: bool, log_scale: bool, colour: ColourSettings,
+                 factor: float = 1.0) -> tuple[float, float]:
+    """Colour limits in ``image`` units as ``colour.limits`` asks.
+
+    ``"robust"`` and ``"extremes"``: :func:`colour_scale` with ``robust`` on or off;
+    ``"manual"``: :func:`manual_range` (``factor`` converts its atomic units to the
+    display units of ``image``).
+    """
+    if colour.limits == "manual":
+        return manual_range(colour, signed, log_scale, factor)
+    return colour_scale(image, signed, log_scale, robust=colour.limits != "extremes",
+                        decades=colour.log_decades)
+
+
+def log_image(values: FloatArray, colour: ColourSettings, factor: float = 1.0) -> FloatArray:
+    """log10 of non-negative ``values``, floored a decade below what the scale shows.
+
+    The floor is 10^−(decades + 1) of the maximum, or a tenth of a manual low limit
+    when that is lower, so every pixel below the scale takes its bottom colour.
+    """
+    peak = float(np.max(values)) if values.size else 0.0
+    floor = peak * 10.0 ** (-colour.log_decades - 1) if peak > 0 else 1e-300
+    if colour.limits == "manual" and colour.low > 0:
+        floor = min(floor, 0.1 * colour.low * factor)
+    return np.log10(np.maximum(values, floor))
+
+
+@dataclass(frozen=True)
+class ColourSubject:
+    """What a view's colour controls act on.
+
+    Attributes
+    ----------
+    colour : ColourSettings
+        The view's own settings (``slice.colour``, ``pair.colour`` or ``two_electron.colour``).
+    field : str
+        Where they live in the state: ``"slice"``, ``"pair"`` or ``"two_electron"``.
+    quantity : str
+        The ``quantity`` of the scenes drawn (``"psi"``, ``"density"``, ``"two-electron"``...).
+    length_power : float
+        The quantity coloured carries length^power (for the units of manual limits).
+    signed : bool
+        The quantity has a sign: a symmetric diverging scale, no log scale.
+    difference : bool
+        A signed difference panel is drawn beside it (it uses the diverging map).
+    """
+
+    colour: ColourSettings
+    field: str
+    quantity: str
+    length_power: float
+    signed: bool
+    difference: bool
+
+
+def colour_subject(state: ViewState) -> ColourSubject | None:
+    """The colour settings the current view of ``state`` draws with; None for radial and terms."""
+    if state.view == "slice":
+        quantity = QUANTITIES[state.slice.quantity]
+        return ColourSubject(state.slice.colour, "slice", state.slice.quantity, quantity.length_power,
+                             state.slice.quantity == "psi", state.compare.has_difference())
+    if state.view == "pair":
+        # The same- and opposite-spin densities; the exchange hole is one-sided too.
+        return ColourSubject(state.pair.colour, "pair", "density", -3.0, False, False)
+    if state.view == "two-electron":
+        radial = state.two_electron.map == "radial"
+        return ColourSubject(state.two_electron.colour, "two_electron", "two-electron",
+                             -2.0 if radial else -3.0, not radial, True)
+    return None
+
+
 def contour_levels(low: float, high: float, count: int, signed: bool) -> tuple[float, ...]:
     """``count`` evenly spaced levels inside (low, high), zero excluded for signed data."""
     if count <= 0 or not high > low:
@@ -189,15 +334,10 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
     if settings.quantity != "density" and not np.any(values):
         what += " — zero everywhere on this plane (a nodal plane)"
     signed = settings.quantity == "psi"
-    log_scale = settings.log_scale and not signed
-    if log_scale:
-        decades = settings.log_decades
-        floor = float(np.max(values)) * 10.0 ** (-decades - 1) if np.max(values) > 0 else 1e-300
-        image = np.log10(np.maximum(values, floor))
-    else:
-        image = values
-    low, high = colour_scale(image, signed, log_scale, robust=not settings.full_range,
-                             decades=settings.log_decades)
+    colour = settings.colour
+    log_scale = colour.log_scale and not signed
+    image = log_image(values, colour, factor) if log_scale else values
+    low, high = colour_range(image, signed, log_scale, colour, factor)
     unit = length_symbol(length_unit)
     scale = length_factor(length_unit, 1.0)
     plane_text = _plane_text(settings, unit, scale)
@@ -222,6 +362,9 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
         colour_range=(low, high),
         levels=contour_levels(low, high, settings.contours, signed),
         zero_contour=signed,
+        sequential_map=colour.sequential_map,
+        diverging_map=colour.diverging_map,
+        value_factor=factor,
     )
 
 

@@ -1,11 +1,19 @@
 """The view state: plain data describing what the window shows (no Qt, no physics)."""
 
 from zeffir.state._view_state import (
+    COLOUR_LIMITS,
+    DEFAULT_DIVERGING_MAP,
+    DEFAULT_SEQUENTIAL_MAP,
+    DIVERGING_MAP_NAMES,
     LENGTH_UNITS,
+    MAX_SERIES,
     MAX_VIEW_RESOLUTION,
     PLANE_NAMES,
     RADIAL_QUANTITIES,
+    SEQUENTIAL_MAP_NAMES,
     SLICE_QUANTITIES,
+    VIEW_NAMES,
+    ColourSettings,
     CompareSettings,
     OrbitalChoice,
     PairSettings,
@@ -19,11 +27,19 @@ from zeffir.state._view_state import (
 )
 
 __all__ = [
+    "COLOUR_LIMITS",
+    "DEFAULT_DIVERGING_MAP",
+    "DEFAULT_SEQUENTIAL_MAP",
+    "DIVERGING_MAP_NAMES",
     "LENGTH_UNITS",
+    "MAX_SERIES",
     "MAX_VIEW_RESOLUTION",
     "PLANE_NAMES",
     "RADIAL_QUANTITIES",
+    "SEQUENTIAL_MAP_NAMES",
     "SLICE_QUANTITIES",
+    "VIEW_NAMES",
+    "ColourSettings",
     "CompareSettings",
     "OrbitalChoice",
     "PairSettings",

@@ -34,9 +34,12 @@ class SourceFields(QWidget):
     source_edited = Signal(object)
     resubmitted = Signal(object)
 
-    def __init__(self, caption: str, parent: QWidget | None = None, stacked: bool = False) -> None:
+    def __init__(self, caption: str, parent: QWidget | None = None, stacked: bool = False,
+                 allow_empty: bool = False) -> None:
         super().__init__(parent)
         self._source = Source()
+        # An empty field is a valid choice where it means "the main atom" (further series).
+        self._allow_empty = allow_empty
         self.spec_edit = QLineEdit()
         self.spec_edit.setPlaceholderText("e.g. Fe3+ or C 1s2 2s1 2p3")
         self.spec_edit.setToolTip(SPEC_TIP)
@@ -109,6 +112,10 @@ class SourceFields(QWidget):
             self._debounce.stop()
 
     def _validate(self, text: str) -> bool:
+        if self._allow_empty and not text.strip():
+            self.message.clear()
+            self.message.setToolTip("")
+            return True
         try:
             parse_spec(text)
         except ZeffirError as error:

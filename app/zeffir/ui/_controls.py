@@ -20,9 +20,11 @@ from PySide6.QtWidgets import (
 )
 
 from zeffir.core import ANGSTROM_PER_BOHR, ZeffirError, parse_spec
-from zeffir.scene import QUANTITIES
-from zeffir.state import MAX_VIEW_RESOLUTION, CompareSettings, PairSettings, ViewState
+from zeffir.scene import QUANTITIES, SliceScene
+from zeffir.state import MAX_VIEW_RESOLUTION, ColourSettings, CompareSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
+from zeffir.ui._colour_controls import ColourControls
+from zeffir.ui._series_list import SeriesList
 from zeffir.ui._wheel_guard import guard_wheel
 
 __all__ = ["ViewControls"]
@@ -95,8 +97,13 @@ class ViewControls(QWidget):
         self.compare_box = self._build_compare()
         self.pair_box = self._build_pair()
         self.two_electron_box = self._build_two_electron()
+        # Limits, log scale and colour map of the slice, pair and two-electron views.
+        self.colour_box = ColourControls()
+        self.colour_box.colour_edited.connect(self._emit_colour)
+        self.log_scale = self.colour_box.log_scale
+        self.log_decades = self.colour_box.log_decades
         for box in (self.radial_box, self.slice_box, self.compare_box, self.pair_box,
-                    self.two_electron_box):
+                    self.two_electron_box, self.colour_box):
             layout.addWidget(box)
         layout.addStretch(1)
         self._slice_timer = QTimer(self)
@@ -162,18 +169,6 @@ class ViewControls(QWidget):
         self.resolution.setSuffix(" px")
         self.resolution.setKeyboardTracking(False)
         self.resolution.setToolTip(f"Points per side (up to {MAX_VIEW_RESOLUTION})")
-        self.log_scale = QCheckBox("Logarithmic colour scale")
-        self.log_scale.setToolTip("For |ψ|², ρ and the pair densities: the decades below the "
-                                  "maximum set under Decades")
-        self.log_decades = _spin(1.0, 16.0, 1.0, 1, " decades")
-        self.log_decades.setToolTip("How many decades below the maximum a logarithmic colour "
-                                    "scale shows")
-        self.full_range = QCheckBox("Colour scale to the extremes")
-        self.full_range.setToolTip(
-            "Off: the linear scale ends at the 99.5th percentile of |value|, so a nuclear cusp "
-            "does not wash out the outer region (saturated pixels show the end colour).\n"
-            "On: the scale spans the full range of values."
-        )
         self.contours = QSpinBox()
         self.contours.setRange(0, 40)
         self.contours.setToolTip("Number of contour lines (nodal lines of ψ are always drawn)")
@@ -185,16 +180,10 @@ class ViewControls(QWidget):
         form.addRow(self.fit_extent)
         form.addRow("Resolution", self.resolution)
         form.addRow("Contours", self.contours)
-        form.addRow(self.log_scale)
-        form.addRow("Decades", self.log_decades)
-        form.addRow(self.full_range)
         self.slice_quantity.activated.connect(lambda _i: self._emit_slice())
         self.plane.activated.connect(lambda _i: self._emit_slice())
-        self.log_scale.toggled.connect(lambda _b: self._emit_slice())
-        self.full_range.toggled.connect(lambda _b: self._emit_slice())
         self.fit_extent.toggled.connect(lambda _b: self._emit_slice())
-        for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours,
-                     self.log_decades):
+        for spin in (*self.normal, self.offset, self.extent, self.resolution, self.contours):
             spin.valueChanged.connect(lambda _v: self._slice_timer.start())
         return box
 
@@ -210,10 +199,20 @@ class ViewControls(QWidget):
         _shrinkable(self.compare_source.model_box, 10)
         self.compare_source.message.setWordWrap(True)
         self.show_difference = QCheckBox("Show the difference (right − left)")
+        self.show_difference.setToolTip("Second series − first, panel by panel (only when exactly "
+                                        "two series are compared)")
+        self.series_list = SeriesList()
+        self.overlay = QCheckBox("Radial curves on one set of axes")
+        self.overlay.setToolTip("Overlay every series' radial curves (one line style per series, "
+                                "one colour per subshell) instead of a panel each")
         layout.addWidget(self.compare_on)
         layout.addWidget(self.same_atom)
         layout.addWidget(self.compare_source)
+        layout.addWidget(self.series_list)
+        layout.addWidget(self.overlay)
         layout.addWidget(self.show_difference)
+        self.series_list.edited.connect(lambda _s: self._emit_compare())
+        self.overlay.toggled.connect(lambda _b: self._emit_compare())
         self.compare_on.toggled.connect(lambda _b: self._emit_compare())
         self.show_difference.toggled.connect(lambda _b: self._emit_compare())
         self.same_atom.toggled.connect(lambda _b: self._emit_compare())
@@ -281,9 +280,8 @@ class ViewControls(QWidget):
         widgets: list[QWidget] = [
             self.units, self.radial_quantity, self.weighted, self.show_subshells, self.show_total,
             self.show_markers, self.log_r, self.slice_quantity, self.plane, *self.normal,
-            self.offset, self.extent, self.resolution, self.log_scale, self.contours,
-            self.full_range, self.fit_extent, self.log_decades,
-            self.compare_on, self.show_difference, self.same_atom,
+            self.offset, self.extent, self.resolution, self.contours, self.fit_extent,
+            self.compare_on, self.show_difference, self.same_atom, self.overlay,
         ]
         for widget in widgets:
             widget.blockSignals(True)
@@ -309,11 +307,7 @@ class ViewControls(QWidget):
         self.extent.setEnabled(not s.fit_extent)
         self.resolution.setValue(s.resolution)
         self.contours.setValue(s.contours)
-        self.log_scale.setChecked(s.log_scale)
-        self.log_scale.setEnabled(s.quantity != "psi" or state.view == "pair")
-        self.log_decades.setValue(s.log_decades)
-        self.log_decades.setEnabled(s.log_scale and self.log_scale.isEnabled())
-        self.full_range.setChecked(s.full_range)
+        self.colour_box.show_state(state)
         c = state.compare
         self.compare_on.setChecked(c.enabled)
         self.show_difference.setChecked(c.show_difference)
@@ -322,7 +316,11 @@ class ViewControls(QWidget):
         self.compare_source.show_source(c.right)
         self.compare_source.setEnabled(c.enabled)
         self.compare_source.spec_edit.setEnabled(c.enabled and not c.same_atom)
-        self.show_difference.setEnabled(c.enabled)
+        self.show_difference.setEnabled(c.enabled and not c.more)
+        self.series_list.show_sources(c.more)
+        self.series_list.setEnabled(c.enabled)
+        self.overlay.setChecked(c.overlay)
+        self.overlay.setEnabled(c.enabled)
         self.spin_box.blockSignals(True)
         self.spin_box.setCurrentIndex(self.spin_box.findData(state.pair.spin))
         self.spin_box.blockSignals(False)
@@ -383,6 +381,18 @@ class ViewControls(QWidget):
         self.compare_box.setVisible(view in ("radial", "slice"))
         self.pair_box.setVisible(view == "pair")
         self.two_electron_box.setVisible(view == "two-electron")
+        self.colour_box.setVisible(view in ("slice", "pair", "two-electron"))
+
+    def show_drawn_colour(self, view: str, scene: SliceScene) -> None:
+        """Let the Colour group show the limits ``view``'s picture was drawn with.
+
+        Parameters
+        ----------
+        view : {"slice", "pair", "two-electron"}
+        scene : SliceScene
+            The first panel on screen (the others share its scale, the difference aside).
+        """
+        self.colour_box.show_drawn(view, scene)
 
     # -- widgets → state ------------------------------------------------------------
     def _emit_radial(self) -> None:
@@ -410,11 +420,17 @@ class ViewControls(QWidget):
             extent=self._extent_bohr(),
             resolution=self.resolution.value(),
             contours=self.contours.value(),
-            log_scale=self.log_scale.isChecked(),
-            full_range=self.full_range.isChecked(),
             fit_extent=self.fit_extent.isChecked(),
-            log_decades=self.log_decades.value(),
         ))
+
+    def _emit_colour(self, where: str, colour: ColourSettings) -> None:
+        """Write a view's new colour settings back into its part of the state."""
+        if where == "slice":
+            self.slice_edited.emit(replace(self._state.slice, colour=colour))
+        elif where == "pair":
+            self.pair_edited.emit(replace(self._state.pair, colour=colour))
+        else:
+            self.two_electron_edited.emit(replace(self._state.two_electron, colour=colour))
 
     def _emit_pair(self) -> None:
         text = self.determinant.text().strip()
@@ -427,7 +443,8 @@ class ViewControls(QWidget):
                 self.determinant_message.setText(str(error))
                 return
         self.determinant_message.clear()
-        self.pair_edited.emit(PairSettings(
+        self.pair_edited.emit(replace(
+            self._state.pair,  # its colour settings are the Colour group's
             reference=tuple(self._bohr(spin, value) for spin, value in  # type: ignore[arg-type]
                             zip(self.reference, self._state.pair.reference, strict=True)),
             spin=str(self.spin_box.currentData()),  # type: ignore[arg-type]
@@ -448,4 +465,6 @@ class ViewControls(QWidget):
             right=right,
             show_difference=self.show_difference.isChecked(),
             same_atom=same_atom,
+            more=self.series_list.sources(),
+            overlay=self.overlay.isChecked(),
         ))

@@ -10,13 +10,10 @@ from PySide6.QtCore import QSettings, Qt, QTimer, Slot
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
     QAbstractButton,
-    QComboBox,
-    QDialog,
-    QDialogButtonBox,
     QDockWidget,
-    QFileDialog,
     QFormLayout,
     QFrame,
+    QGridLayout,
     QHBoxLayout,
     QLabel,
     QMainWindow,
@@ -24,7 +21,6 @@ from PySide6.QtWidgets import (
     QProgressBar,
     QPushButton,
     QScrollArea,
-    QSpinBox,
     QSplitter,
     QTabWidget,
     QVBoxLayout,
@@ -33,25 +29,24 @@ from PySide6.QtWidgets import (
 
 from zeffir.core import get_model, subshell_table
 from zeffir.scene import (
-    compare_radial,
-    compare_slices,
+    VIEW_RECIPES,
     forget_failure,
     length_factor,
     line_profile,
     orbitals_for,
-    pair_scenes,
+    panels_of,
     plane_of,
-    radial_scene,
-    slice_scene,
-    two_electron_scenes,
-    with_fitted_extent,
+    view_inputs,
 )
-from zeffir.state import OrbitalChoice, Source, ViewState
+from zeffir.state import MAX_SERIES, OrbitalChoice, Source, ViewState
 from zeffir.ui._about import show_about, show_help
 from zeffir.ui._atom_bar import AtomBar
 from zeffir.ui._controls import ViewControls
+from zeffir.ui._figure_export import FigureExport
+from zeffir.ui._jobs import JobKey
 from zeffir.ui._profile_view import ProfileView
 from zeffir.ui._radial_view import RadialView
+from zeffir.ui._session_files import SessionFiles
 from zeffir.ui._slice_view import PROFILE_HINT, SliceView
 from zeffir.ui._state_model import StateModel
 from zeffir.ui._subshell_table import SubshellTable
@@ -61,44 +56,13 @@ from zeffir.ui._worker import SceneWorker
 
 __all__ = ["MainWindow"]
 
-SESSION_FILTER = "Zeffir sessions (*.zeffir)"
-MAX_RECENT = 8
 #: Contour lines are traced this long after a new slice image (so the image paints first).
 CONTOUR_DELAY_MS = 25
 #: A view still computing says so on its picture after this long (quick redraws stay quiet).
 BUSY_BANNER_DELAY_MS = 400
 
 
-def _radial_job(state: ViewState) -> Any:
-    if state.compare.enabled:
-        return compare_radial(state)
-    return radial_scene(state.left, state.radial, state.length_unit, state.orbital.subshell)
-
-
-def _slice_job(state: ViewState) -> Any:
-    state = with_fitted_extent(state)
-    if state.compare.enabled:
-        return compare_slices(state)
-    return slice_scene(state.left, state.orbital, state.slice, state.length_unit)
-
-
-def _pair_job(state: ViewState) -> Any:
-    return pair_scenes(with_fitted_extent(state))
-
-
-def _two_electron_job(state: ViewState) -> Any:
-    return two_electron_scenes(state)
-
-
-def _terms_job(state: ViewState) -> Any:
-    from zeffir.scene._terms import terms_summary
-
-    return terms_summary(state.left.spec)
-
-
 _VIEWS = ("radial", "slice", "pair", "two-electron", "terms")
-_JOBS = {"radial": _radial_job, "slice": _slice_job, "pair": _pair_job,
-         "two-electron": _two_electron_job, "terms": _terms_job}
 
 
 def _contour_job(scenes: list[Any]) -> Any:
@@ -106,26 +70,37 @@ def _contour_job(scenes: list[Any]) -> Any:
     return [scene.with_contours() for scene in scenes]
 
 
-def _table_job(source: Source, right: Source | None = None, unit: str = "bohr") -> Any:
-    """Rows, energy lines and notes of the main source (and the comparison's, if any)."""
+def _table_job(source: Source, versus: tuple[Source, ...] = (), unit: str = "bohr") -> Any:
+    """Rows, energy lines and notes of the main source and of every compared series.
+
+    Returns ``(source, series, summary, notes)``: ``series`` is a list of (name, rows),
+    one per series that could be built; a series that fails adds a line saying so.
+    """
     from zeffir.core import ZeffirError
+    from zeffir.scene import series_names
 
     orbitals = orbitals_for(source)
     rows = subshell_table(orbitals)
+    others = [s for s in dict.fromkeys(versus) if s != source]
+    names = series_names([source, *others]) if others else ("",)
+    series = [(names[0], rows)]
+    # Each line names its spec and model, so the series need no further label here.
     lines = [_energy_summary(source, orbitals, unit)]
     notes = _notes_of(orbitals, rows)
-    if right is not None and right != source:
+    for name, other_source in zip(names[1:], others, strict=True):
         try:
-            other = orbitals_for(right)
+            other = orbitals_for(other_source)
         except ZeffirError as error:
-            lines.append(f"versus {_source_text(right)}: failed: {error}")
-        else:
-            lines.append(f"versus: {_energy_summary(right, other, unit)}")
-            same_atom = other.configuration.occupations == orbitals.configuration.occupations
-            notes += [f"versus ({right.spec}, {right.model}): {note}"
-                      for note in _notes_of(other, subshell_table(other))
-                      if not (same_atom and note == other.configuration.origin_note)]
-    return source, rows, "\n".join(lines), notes
+            lines.append(f"{name}: {_source_text(other_source)} failed: {error}")
+            continue
+        other_rows = subshell_table(other)
+        series.append((name, other_rows))
+        lines.append(_energy_summary(other_source, other, unit))
+        same_atom = other.configuration.occupations == orbitals.configuration.occupations
+        notes += [f"{name} ({other_source.spec}, {other_source.model}): {note}"
+                  for note in _notes_of(other, other_rows)
+                  if not (same_atom and note == other.configuration.origin_note)]
+    return source, series, "\n".join(lines), list(dict.fromkeys(notes))
 
 
 def _notes_of(orbitals: Any, rows: Any) -> list[str]:
@@ -138,10 +113,9 @@ def _notes_of(orbitals: Any, rows: Any) -> list[str]:
 
 def describe(state: ViewState) -> str:
     """'Fe — Slater's rules', with the comparison's side when one is shown."""
-    text = _source_text(state.left)
-    if state.compare.enabled and state.view in ("radial", "slice"):
-        text += f" vs {_source_text(state.compare.right)}"
-    return text
+    if state.view in ("radial", "slice"):
+        return " vs ".join(_source_text(source) for source in state.series())
+    return _source_text(state.left)
 
 
 def _source_text(source: Source) -> str:
@@ -184,58 +158,55 @@ def _energy_summary(source: Source, orbitals: Any, unit: str = "bohr") -> str:
     return text
 
 
-class _Trio(QWidget):
-    """Left, right and difference views in a row; only the left one outside comparisons.
+class _PanelGrid(QWidget):
+    """The panels of one view: up to :data:`MAX_SERIES` series panels and a difference panel.
 
-    Each view titles itself from its scene (spec, model; "right − left" for the
-    difference), so the row needs no captions of its own.
+    One row holds up to three panels; four or more go on two rows. Each panel titles
+    itself from its scene, so the grid needs no captions of its own. Series panels
+    share both axes; a radial difference panel shares r only (its values are small).
     """
 
     def __init__(self, factory: type[RadialView] | type[SliceView]) -> None:
         super().__init__()
-        self.views = [factory(), factory(), factory()]
-        layout = QHBoxLayout(self)
-        layout.setContentsMargins(0, 0, 0, 0)
-        layout.setSpacing(2)
-        for view in self.views:
-            layout.addWidget(view, 1)
-        self.views[1].link_axes(self.views[0])  # type: ignore[arg-type]
+        self.series_views = [factory() for _ in range(MAX_SERIES)]
+        self.difference_view = factory()
+        self.all_views = [*self.series_views, self.difference_view]
+        self._layout = QGridLayout(self)
+        self._layout.setContentsMargins(0, 0, 0, 0)
+        self._layout.setSpacing(2)
+        first = self.series_views[0]
+        for view in self.series_views[1:]:
+            view.link_axes(first)  # type: ignore[arg-type]
         if factory is SliceView:
-            self.views[2].link_axes(self.views[0])  # type: ignore[arg-type]
+            self.difference_view.link_axes(first)  # type: ignore[arg-type]
         else:  # radial differences are small: share r only, not the value axis
-            self.views[2].link_axes(self.views[0], y=False)  # type: ignore[call-arg]
+            self.difference_view.link_axes(first, y=False)  # type: ignore[call-arg]
+        self._shown: list[RadialView | SliceView] = []
+        self.set_panels(1, False)
 
-    def set_columns(self, count: int) -> None:
-        for i, view in enumerate(self.views):
-            view.setVisible(i < count)
-        for view in self.views[:count]:
+    @property
+    def views(self) -> list[RadialView | SliceView]:
+        """The panels on screen, in drawing order (series first, then the difference)."""
+        return list(self._shown)
+
+    def set_panels(self, series: int, difference: bool) -> None:
+        """Show ``series`` series panels and, if asked, the difference panel after them."""
+        shown = [*self.series_views[:series], *([self.difference_view] if difference else [])]
+        if shown == self._shown:
+            return
+        for view in self.all_views:
+            self._layout.removeWidget(view)
+            view.setVisible(False)
+        columns = len(shown) if len(shown) <= 3 else (len(shown) + 1) // 2
+        for index, view in enumerate(shown):
+            self._layout.addWidget(view, index // columns, index % columns)
+            view.setVisible(True)
+        for column in range(3):
+            self._layout.setColumnStretch(column, 1 if column < columns else 0)
+        self._shown = shown
+        for view in shown:
             if isinstance(view, RadialView):
                 view.refit()
-
-
-class ExportOptions(QDialog):
-    """Figure width and resolution for an export."""
-
-    def __init__(self, parent: QWidget, width: str, dpi: int) -> None:
-        super().__init__(parent)
-        self.setWindowTitle("Figure options")
-        self.width_box = QComboBox()
-        self.width_box.addItem("single column (85 mm)", "single")
-        self.width_box.addItem("double column (178 mm)", "double")
-        self.width_box.setCurrentIndex(max(self.width_box.findData(width), 0))
-        self.dpi = QSpinBox()
-        self.dpi.setRange(72, 1200)
-        self.dpi.setValue(dpi)
-        self.dpi.setSuffix(" dpi")
-        self.dpi.setToolTip("Resolution of PNG files (SVG and PDF are vector)")
-        form = QFormLayout(self)
-        form.addRow("Width", self.width_box)
-        form.addRow("Resolution", self.dpi)
-        buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Ok
-                                   | QDialogButtonBox.StandardButton.Cancel)
-        buttons.accepted.connect(self.accept)
-        buttons.rejected.connect(self.reject)
-        form.addRow(buttons)
 
 
 class MainWindow(QMainWindow):
@@ -256,7 +227,6 @@ class MainWindow(QMainWindow):
         self.settings = settings or QSettings("Zeffir", "Zeffir")
         self.model = StateModel(state)
         self.worker = SceneWorker(self, synchronous=synchronous)
-        self.session_path: Path | None = None
         self.last_export: Path | None = None
         # What each view was last asked to show, what its picture was computed from,
         # and why the two differ (a failure or a cancel) when they do.
@@ -266,6 +236,10 @@ class MainWindow(QMainWindow):
         self._table_asked: Source | None = None
         self._table_drawn: Source | None = None
         self._build_widgets()
+        self.sessions = SessionFiles(self, self.model, self.settings, self.statusBar(),
+                                     lambda: self._show_state(self.model.state))
+        self.exports = FigureExport(self, self.model, self.worker, self.settings, self.statusBar(),
+                                    self.problem, self.sessions.last_dir)
         self._build_menus()
         self.model.changed.connect(self._on_state_changed)
         self.model.rejected.connect(lambda message: self.statusBar().showMessage(message, 8000))
@@ -293,16 +267,16 @@ class MainWindow(QMainWindow):
         panel_width = self.controls.minimumSizeHint().width() + 24  # room for the scroll bar
         scroll.setMinimumWidth(panel_width)
         scroll.setMaximumWidth(panel_width + 60)
-        self.radial_trio = _Trio(RadialView)
-        self.slice_trio = _Trio(SliceView)
-        for view in self.slice_trio.views:
+        self.radial_trio = _PanelGrid(RadialView)
+        self.slice_trio = _PanelGrid(SliceView)
+        for view in self.slice_trio.all_views:
             view.use_external_contours(True)
         self.tabs = QTabWidget()
         self.tabs.addTab(self.radial_trio, "Radial")
         self.tabs.addTab(self.slice_trio, "Slice")
-        self.pair_trio = _Trio(SliceView)
-        self.two_trio = _Trio(SliceView)
-        for view in (*self.pair_trio.views, *self.two_trio.views):
+        self.pair_trio = _PanelGrid(SliceView)
+        self.two_trio = _PanelGrid(SliceView)
+        for view in (*self.pair_trio.all_views, *self.two_trio.all_views):
             view.use_external_contours(True)
         self.tabs.addTab(self.pair_trio, "Pair")
         self.tabs.addTab(self.two_trio, "Two electrons")
@@ -399,7 +373,7 @@ class MainWindow(QMainWindow):
         self.controls.pair_edited.connect(lambda p: self.model.update(pair=p))
         self.controls.two_electron_edited.connect(lambda t: self.model.update(two_electron=t))
         self.tabs.currentChanged.connect(lambda i: self.model.update(view=_VIEWS[i]))
-        for view in self.pair_trio.views:
+        for view in self.pair_trio.all_views:
             view.clicked.connect(self._place_reference)
         for trio in (self.radial_trio, self.slice_trio, self.pair_trio, self.two_trio):
             self._link_cursors(trio)
@@ -412,10 +386,10 @@ class MainWindow(QMainWindow):
         self.profile_dock.hide()  # appears with the first profile
         self._profile_segment: tuple[str, int, tuple[float, float], tuple[float, float]] | None = None
         for key in ("slice", "pair", "two-electron"):
-            for index, view in enumerate(self._trios[key].views):
+            for view in self._trios[key].all_views:
                 view.profile_requested.connect(
-                    lambda u0, v0, u1, v1, k=key, i=index: self._request_profile(
-                        k, i, (u0, v0), (u1, v1)))
+                    lambda u0, v0, u1, v1, k=key, w=view: self._request_profile(
+                        k, w, (u0, v0), (u1, v1)))
         self.profile_view.cleared.connect(self._clear_profile)
         self.profile_view.saved.connect(
             lambda path: self.statusBar().showMessage(f"Saved {path}", 8000))
@@ -430,10 +404,10 @@ class MainWindow(QMainWindow):
         reference = (round(x / scale, 4), round(y / scale, 4), round(z / scale, 4))
         self.model.update(pair=replace(state.pair, reference=reference))
 
-    def _link_cursors(self, trio: _Trio) -> None:
-        signal = "cursor_moved" if isinstance(trio.views[0], RadialView) else "hovered"
-        for source in trio.views:
-            for target in trio.views:
+    def _link_cursors(self, trio: _PanelGrid) -> None:
+        signal = "cursor_moved" if isinstance(trio.all_views[0], RadialView) else "hovered"
+        for source in trio.all_views:
+            for target in trio.all_views:
                 if target is not source:
                     getattr(source, signal).connect(target.show_cursor)
 
@@ -441,6 +415,7 @@ class MainWindow(QMainWindow):
         file_menu = self.menuBar().addMenu("&File")
         self._add(file_menu, "&Open session…", self.open_session, QKeySequence.StandardKey.Open)
         self.recent_menu = file_menu.addMenu("Recent sessions")
+        self.sessions.recent_menu = self.recent_menu
         self._add(file_menu, "&Save session", self.save_session, QKeySequence.StandardKey.Save)
         self._add(file_menu, "Save session &as…", self.save_session_as,
                   QKeySequence.StandardKey.SaveAs)
@@ -470,7 +445,7 @@ class MainWindow(QMainWindow):
         help_menu = self.menuBar().addMenu("&Help")
         self._add(help_menu, "&Help", lambda: show_help(self), QKeySequence(Qt.Key.Key_F1))
         self._add(help_menu, "&About Zeffir and model limits", lambda: show_about(self))
-        self._refresh_recent()
+        self.sessions.refresh_recent()
 
     def _add(self, menu: Any, text: str, slot: Any, shortcut: Any = None) -> QAction:
         action = menu.addAction(text)
@@ -484,7 +459,7 @@ class MainWindow(QMainWindow):
     def _on_state_changed(self, new: ViewState, old: ViewState) -> None:
         self._show_state(new)
         if new.length_unit != old.length_unit:
-            self._clear_profile()  # the segment is in display units
+            self._rescale_profile(old.length_unit, new.length_unit)
         if (new.left, new.length_unit, _table_versus(new)) != (
                 old.left, old.length_unit, _table_versus(old)):
             self._request_table(new.left)
@@ -506,11 +481,12 @@ class MainWindow(QMainWindow):
         self.tabs.blockSignals(False)
         self.compare_action.setChecked(state.compare.enabled)
         self.unit_actions[state.length_unit].setChecked(True)
-        columns = (3 if state.compare.show_difference else 2) if state.compare.enabled else 1
-        self.radial_trio.set_columns(columns)
-        self.slice_trio.set_columns(columns)
-        self.pair_trio.set_columns(3)
-        self.two_trio.set_columns(3)
+        series = len(state.series())
+        difference = state.compare.has_difference()
+        self.radial_trio.set_panels(1 if state.compare.overlay and series > 1 else series, difference)
+        self.slice_trio.set_panels(series, difference)
+        self.pair_trio.set_panels(2, True)
+        self.two_trio.set_panels(2, True)
         name = self.session_path.name if self.session_path else "untitled"
         self.setWindowTitle(f"Zeffir — {state.left.spec} ({name})")
 
@@ -521,17 +497,17 @@ class MainWindow(QMainWindow):
 
     def _request_table(self, source: Source) -> None:
         self._table_asked = source
-        self._trouble.pop("table", None)
+        self._trouble.pop(JobKey.TABLE, None)
         state = self.model.state
         versus, unit = _table_versus(state), state.length_unit
-        self.worker.request("table", lambda: _table_job(source, versus, unit))
+        self.worker.request(JobKey.TABLE, lambda: _table_job(source, versus, unit))
 
     def _request_view(self, state: ViewState) -> None:
-        job = _JOBS[state.view]
+        recipe = VIEW_RECIPES[state.view]
         self._asked[state.view] = state
         self._trouble.pop(state.view, None)
         self._banner_timer.start()
-        self.worker.request(state.view, lambda s=state: (s, job(s)))
+        self.worker.request(JobKey.of_view(state.view), lambda s=state: (s, recipe.build(s)))
 
     # -- what is drawn against what was asked -----------------------------------------
     @property
@@ -562,7 +538,7 @@ class MainWindow(QMainWindow):
             showing = "nothing yet" if drawn is None else describe(drawn)
             reason = self._trouble.get(view, "computing…")
             parts.append(f"showing: {showing}; asked: {describe(state)} — {reason}")
-        table_trouble = self._trouble.get("table")
+        table_trouble = self._trouble.get(JobKey.TABLE)
         if table_trouble and self._table_drawn != state.left and view not in self._trouble:
             shown = "nothing" if self._table_drawn is None else _source_text(self._table_drawn)
             parts.append(f"table shows {shown}; asked: {_source_text(state.left)} — "
@@ -572,9 +548,8 @@ class MainWindow(QMainWindow):
     def retry(self) -> None:
         """Compute what the controls ask for again, forgetting remembered failures."""
         state = self.model.state
-        forget_failure(state.left)
-        if state.compare.enabled:
-            forget_failure(state.compare.right)
+        for source in state.series():
+            forget_failure(source)
         self._request_table(state.left)
         self._request_view(state)
         self._refresh_banner()
@@ -582,10 +557,10 @@ class MainWindow(QMainWindow):
     def cancel(self) -> None:
         """Stop every running or waiting computation; the views say what they still show."""
         self.worker.cancel()
-        for key in (*self._asked, "table"):
-            if key == "table":
+        for key in (*self._asked, JobKey.TABLE):
+            if key == JobKey.TABLE:
                 if self._table_asked is not None and self._table_asked != self._table_drawn:
-                    self._trouble["table"] = "cancelled"
+                    self._trouble[JobKey.TABLE] = "cancelled"
                 continue
             drawn = self._drawn.get(key)
             if drawn is None or _view_inputs(drawn) != _view_inputs(self._asked[key]):
@@ -603,18 +578,19 @@ class MainWindow(QMainWindow):
         self.retry_button.setVisible(text is not None and not computing)
 
     @Slot(str, object)
-    def _on_result(self, key: str, result: Any) -> None:
+    def _on_result(self, name: str, result: Any) -> None:
+        key = JobKey(name)
         state = self.model.state
-        if key == "table":
-            source, rows, summary, notes = result
+        if key == JobKey.TABLE:
+            source, series, summary, notes = result
             self._table_drawn = source
-            self._trouble.pop("table", None)
-            self.table.show_rows(rows, state.orbital.subshell, state.length_unit)
+            self._trouble.pop(JobKey.TABLE, None)
+            self.table.show_series(series, state.orbital.subshell, state.length_unit)
             self.energy_line.setText(summary)
             self.notes_area.setText("\n".join(f"• {note}" for note in notes))
             self._refresh_banner()
             return
-        if key == "profile":
+        if key == JobKey.PROFILE:
             self.profile_view.show_profile(result)
             if self.profile_dock.isHidden():
                 self.profile_dock.show()
@@ -622,62 +598,70 @@ class MainWindow(QMainWindow):
                 height = max(160, min(240, self.height() // 4))
                 self.resizeDocks([self.profile_dock], [height], Qt.Orientation.Vertical)
             return
-        if key == "export":
+        if key == JobKey.EXPORT:
             self.last_export = result
             self.statusBar().showMessage(f"Exported {result}", 8000)
             return
-        if key.endswith("-contours"):
-            for view, scene in zip(self._trios[key.removesuffix("-contours")].views, result, strict=False):
+        if key.traced_view is not None:
+            for view, scene in zip(self._trios[key.traced_view].views, result, strict=False):
                 view.show_contours(scene)
             return
         drawn_state, result = result
         self._drawn[key] = drawn_state
         self._trouble.pop(key, None)
-        if key == "terms":
+        if key == JobKey.TERMS:
             self.terms_view.show_summary(result)
             self.statusBar().clearMessage()
             self._refresh_banner()
             return
-        parts = ([result.left, result.right, result.difference]
-                 if hasattr(result, "difference") else [result])
+        parts = list(panels_of(result))
         trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
+        if key == JobKey.RADIAL:
+            # Four or more panels are small: a legend equal to the first panel's is left out.
+            labels = [[c.label for c in p.curves] for p in parts]
+            for index, view in enumerate(trio.views[:len(parts)]):
+                repeated = index > 0 and labels[index] == labels[0] and len(parts) > 3
+                view.set_legend_visible(not repeated)  # type: ignore[union-attr]
         if self._profile_segment is not None and self._profile_segment[0] == key:
             # The profile follows a new orbital, model or plane under the same segment.
             _, index, start, end = self._profile_segment
             shown = parts[min(index, len(parts) - 1)]
-            self.worker.request("profile", lambda s=shown, a=start, b=end: line_profile(s, a, b))
-        if key in ("slice", "pair") and drawn_state.slice.fit_extent:
+            self.worker.request(JobKey.PROFILE, lambda s=shown, a=start, b=end: line_profile(s, a, b))
+        if key in (JobKey.SLICE, JobKey.PAIR) and drawn_state.slice.fit_extent:
             scale = length_factor(drawn_state.length_unit, 1.0)
             half = float(abs(parts[0].coordinates).max()) / scale
             self.controls.show_fitted_extent(half)
-        if key != "radial":
-            if key in ("slice", "pair"):
+        if key in (JobKey.SLICE, JobKey.PAIR, JobKey.TWO_ELECTRON) and parts:
+            self.controls.show_drawn_colour(key, parts[0])  # the limits drawn, for Manual to start from
+        if key != JobKey.RADIAL:
+            if key in (JobKey.SLICE, JobKey.PAIR):
                 point_of = _point_mapper(state)
                 for view in trio.views:
                     view.set_point_of(point_of)
             # Trace after the image has been painted, so the two never compete.
             # The window is the timer's context: a closed window's timer never fires.
             QTimer.singleShot(CONTOUR_DELAY_MS, self, lambda p=parts, k=key: self.worker.request(
-                f"{k}-contours", lambda: _contour_job(p)))
+                JobKey.contours_of(k), lambda: _contour_job(p)))
         self.statusBar().clearMessage()
         self._refresh_banner()
 
     @Slot(str, str)
-    def _on_failure(self, key: str, message: str) -> None:
-        if key == "profile":
+    def _on_failure(self, name: str, message: str) -> None:
+        key = JobKey(name)
+        if key == JobKey.PROFILE:
             self.statusBar().showMessage(f"No line profile: {message}", 8000)
             return
-        if key == "export":
+        if key == JobKey.EXPORT:
             self.statusBar().clearMessage()
             QMessageBox.warning(self, "Nothing exported", message)
             return
-        if key.endswith("-contours"):
+        if key.traced_view is not None:
             self.statusBar().showMessage(f"Contour lines not drawn: {message}", 8000)
             return
         self._trouble[key] = f"failed: {message}"
-        if key == "terms":
+        if key == JobKey.TERMS:
             self.terms_view.show_error(self.model.state.left.spec, message)
         self.statusBar().clearMessage()  # the last progress line would read as current
         self._banner_timer.stop()
@@ -688,25 +672,44 @@ class MainWindow(QMainWindow):
         self.progress.setVisible(active)
         self.cancel_button.setVisible(active)
 
-    def _request_profile(self, key: str, index: int, start: tuple[float, float],
+    def _request_profile(self, key: str, panel: Any, start: tuple[float, float],
                          end: tuple[float, float]) -> None:
         """Sample the panel the segment was drawn on; show the segment on its row's panels."""
         for other_key in ("slice", "pair", "two-electron"):
-            for view in self._trios[other_key].views:
+            for view in self._trios[other_key].all_views:
                 if other_key == key:
                     view.set_profile_segment(*start, *end)
                 else:
                     view.clear_profile()
-        scene = self._trios[key].views[index].current_scene()
+        shown = self._trios[key].views
+        index = shown.index(panel) if panel in shown else 0
+        scene = shown[index].current_scene()
         if scene is None:
             return
         self._profile_segment = (key, index, start, end)
-        self.worker.request("profile", lambda s=scene, a=start, b=end: line_profile(s, a, b))
+        self.worker.request(JobKey.PROFILE, lambda s=scene, a=start, b=end: line_profile(s, a, b))
+
+    def _rescale_profile(self, old_unit: str, new_unit: str) -> None:
+        """Keep the line profile's segment where it was on the atom after a change of units.
+
+        The segment is held in display units; it is converted, drawn again, and the
+        profile is sampled anew when the view's pictures in the new unit arrive.
+        """
+        if self._profile_segment is None:
+            return
+        key, index, start, end = self._profile_segment
+        factor = length_factor(new_unit, 1.0) / length_factor(old_unit, 1.0)
+        start = (start[0] * factor, start[1] * factor)
+        end = (end[0] * factor, end[1] * factor)
+        self._profile_segment = (key, index, start, end)
+        for view in self._trios[key].all_views:
+            view.set_profile_segment(*start, *end)
+        self.profile_view.show_profile(None)  # until the profile in the new unit is sampled
 
     def _clear_profile(self) -> None:
         self._profile_segment = None
         for trio in (self.slice_trio, self.pair_trio, self.two_trio):
-            for view in trio.views:
+            for view in trio.all_views:
                 view.clear_profile()
 
     def _select_subshell(self, label: str) -> None:
@@ -718,137 +721,32 @@ class MainWindow(QMainWindow):
         compare = self.model.state.compare
         self.model.update(compare=replace(compare, enabled=not compare.enabled))
 
-    # -- sessions -------------------------------------------------------------------
+    # -- sessions and export (see _session_files and _figure_export) --------------------
+    @property
+    def session_path(self) -> Path | None:
+        """The session file open in the window, if any."""
+        return self.sessions.path
+
     def open_session(self, path: str | Path | None = None) -> bool:
         """Open a session file (asks for one if ``path`` is None); on error nothing changes."""
-        from zeffir.export import SessionError, load_session
-
-        if path is None:
-            chosen, _ = QFileDialog.getOpenFileName(self, "Open session", self._last_dir(),
-                                                    SESSION_FILTER)
-            if not chosen:
-                return False
-            path = chosen
-        try:
-            state = load_session(Path(path))
-        except SessionError as error:
-            QMessageBox.warning(self, "Session not opened", str(error))
-            return False
-        self.session_path = Path(path)
-        self.model.set_state(state)
-        self._show_state(self.model.state)
-        self._remember(Path(path))
-        return True
+        return self.sessions.open(path)
 
     def save_session(self) -> bool:
         """Save to the current session file, or ask for one."""
-        if self.session_path is None:
-            return self.save_session_as()
-        return self._write_session(self.session_path)
+        return self.sessions.save()
 
     def save_session_as(self, path: str | Path | None = None) -> bool:
         """Save the session under a new name."""
-        if path is None:
-            chosen, _ = QFileDialog.getSaveFileName(self, "Save session", self._last_dir(),
-                                                    SESSION_FILTER)
-            if not chosen:
-                return False
-            path = chosen if chosen.endswith(".zeffir") else f"{chosen}.zeffir"
-        return self._write_session(Path(path))
+        return self.sessions.save_as(path)
 
-    def _write_session(self, path: Path) -> bool:
-        from zeffir.core import ZeffirError
-        from zeffir.export import save_session
-
-        try:
-            save_session(path, self.model.state)
-        except ZeffirError as error:
-            QMessageBox.warning(self, "Session not saved", str(error))
-            return False
-        self.session_path = path
-        self._remember(path)
-        self._show_state(self.model.state)
-        self.statusBar().showMessage(f"Saved {path}", 5000)
-        return True
-
-    def _remember(self, path: Path) -> None:
-        recent = [p for p in self._recent() if p != str(path)]
-        recent.insert(0, str(path))
-        self.settings.setValue("recent_sessions", recent[:MAX_RECENT])
-        self.settings.setValue("last_dir", str(path.parent))
-        self._refresh_recent()
-
-    def _recent(self) -> list[str]:
-        value = self.settings.value("recent_sessions", [])
-        if isinstance(value, str):
-            return [value]
-        return [str(v) for v in value] if isinstance(value, list) else []
-
-    def _refresh_recent(self) -> None:
-        self.recent_menu.clear()
-        recent = self._recent()
-        for item in recent:
-            action = self.recent_menu.addAction(item)
-            action.triggered.connect(lambda _c=False, p=item: self.open_session(p))
-        self.recent_menu.setEnabled(bool(recent))
-
-    def _last_dir(self) -> str:
-        return str(self.settings.value("last_dir", str(Path.home())))
-
-    # -- export ---------------------------------------------------------------------
     def export_figure(self, path: str | Path | None = None, width: str | None = None,
                       dpi: int | None = None) -> bool:
-        """Export the current view as PNG, SVG or PDF (asks for a file and options if not given)."""
-        if path is None:
-            chosen, _ = QFileDialog.getSaveFileName(
-                self, "Export figure", self._last_dir(),
-                "PNG image (*.png);;SVG drawing (*.svg);;PDF document (*.pdf)")
-            if not chosen:
-                return False
-            options = ExportOptions(self, str(self.settings.value("export_width", "single")),
-                                    int(self.settings.value("export_dpi", 300)))
-            if options.exec() != QDialog.DialogCode.Accepted:
-                return False
-            width, dpi = str(options.width_box.currentData()), options.dpi.value()
-            self.settings.setValue("export_width", width)
-            self.settings.setValue("export_dpi", dpi)
-            path = chosen
-        return self._export(Path(path), width, dpi or 300)
+        """Export the current view as PNG, SVG or PDF; False when refused (nothing written)."""
+        return self.exports.figure(path, width, dpi)
 
     def export_data(self, path: str | Path | None = None) -> bool:
-        """Export the plotted data: CSV for radial curves, NPZ for slices."""
-        if path is None:
-            radial = self.model.state.view == "radial"
-            chosen, _ = QFileDialog.getSaveFileName(
-                self, "Export data", self._last_dir(),
-                "Comma-separated values (*.csv)" if radial else "NumPy archive (*.npz)")
-            if not chosen:
-                return False
-            path = chosen
-        return self._export(Path(path), None, 300)
-
-    def _export(self, path: Path, width: str | None, dpi: int) -> bool:
-        if self.model.state.view == "terms":
-            self.statusBar().showMessage(
-                "Not exported: the Terms view is a table; copy it with Ctrl+C, or use "
-                "'zeffir terms SPEC --json'", 10000)
-            return False
-        problem = self.problem()
-        if problem is not None:
-            self.statusBar().showMessage(
-                f"Not exported: the view does not show what the controls ask ({problem})", 10000)
-            return False
-        # Rendering a figure takes about a second (matplotlib): it runs in the worker.
-        def job(state: ViewState = self.model.state) -> Path:
-            from zeffir.export import export_view
-
-            export_view(state, path, width=width, dpi=dpi)
-            return path
-
-        self.settings.setValue("last_dir", str(path.parent))
-        self.statusBar().showMessage(f"Exporting {path.name}…")
-        self.worker.request("export", job)
-        return True
+        """Export the plotted data (CSV for radial curves, NPZ for slices); False when refused."""
+        return self.exports.data(path)
 
     # -- Qt overrides ---------------------------------------------------------------
     def restore_layout(self) -> None:
@@ -868,9 +766,9 @@ class MainWindow(QMainWindow):
         super().closeEvent(event)
 
 
-def _table_versus(state: ViewState) -> Source | None:
-    """The comparison's source, when the table should report it too."""
-    return state.compare.right if state.compare.enabled else None
+def _table_versus(state: ViewState) -> tuple[Source, ...]:
+    """The compared series after the main one, which the table reports too."""
+    return state.series()[1:]
 
 
 def _name_inputs_by_label(root: QWidget) -> None:
@@ -909,13 +807,4 @@ def _point_mapper(state: ViewState) -> Any:
 
 def _view_inputs(state: ViewState) -> tuple[object, ...]:
     """The parts of the state the current view depends on (a change there recomputes it)."""
-    common = (state.left, state.length_unit)
-    if state.view == "radial":
-        return (*common, state.radial, state.orbital.subshell, state.compare)
-    if state.view == "slice":
-        return (*common, state.slice, state.orbital, state.compare)
-    if state.view == "pair":
-        return (*common, state.slice, state.pair)
-    if state.view == "terms":
-        return (state.left.spec,)
-    return (*common, state.two_electron, state.slice.contours)
+    return view_inputs(state)

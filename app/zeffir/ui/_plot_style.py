@@ -61,6 +61,14 @@ TOTAL_WIDTH: Final = 2.6
 
 #: Beyond the palette's nine colours, curves repeat them with these dash styles.
 _DASHES: Final = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DashDotLine)
+#: Line styles of the series sharing one set of axes, in order (as in exported figures).
+SERIES_DASHES: Final = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DotLine,
+                        Qt.PenStyle.DashDotLine, Qt.PenStyle.DashDotDotLine, Qt.PenStyle.CustomDashLine)
+
+
+def series_pen_style(series: int) -> Qt.PenStyle:
+    """Line style of the ``series``-th series on shared axes (the colour names the subshell)."""
+    return SERIES_DASHES[series % (len(SERIES_DASHES) - 1)]
 
 def subshell_style(subshell: str | None, fallback: int = 0) -> tuple[str, Qt.PenStyle]:
     """Colour and dash style of a subshell's curve (rule in :func:`zeffir.scene.subshell_colour`)."""
@@ -122,10 +130,13 @@ def label_style(points: float = 10.0) -> dict[str, str]:
     return {"color": AXIS_COLOUR, "font-size": f"{points:g}pt"}
 
 
-def colour_map(signed: bool) -> pg.ColorMap:
-    """The pyqtgraph colour map for signed (RdBu) or non-negative (viridis) data."""
-    positions, colours = colour_stops(signed)
-    return pg.ColorMap(np.asarray(positions), [pg.mkColor(c) for c in colours])
+def colour_map(signed: bool, name: str | None = None) -> pg.ColorMap:
+    """The pyqtgraph colour map ``name`` (default RdBu for signed data, viridis otherwise).
+
+    The stops are :func:`zeffir.scene.colour_stops`, which the exported figures use too.
+    """
+    positions, colours = colour_stops(signed, name)
+    return pg.ColorMap(np.asarray(positions), [pg.mkColor(c) for c in colours], name=name or "")
 
 
 def split_label(label: str) -> tuple[str, str]:

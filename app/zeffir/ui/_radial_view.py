@@ -10,8 +10,7 @@ from typing import Final
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QEvent, QObject, QPointF, QRectF, Qt, Signal, Slot
-from PySide6.QtGui import QTextDocument
-from PySide6.QtWidgets import QLabel, QSizePolicy, QStackedLayout, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QSizePolicy, QWidget
 
 from zeffir.scene import RadialScene, model_title
 from zeffir.ui._plot_style import (
@@ -25,10 +24,12 @@ from zeffir.ui._plot_style import (
     label_style,
     make_pen,
     quantity_tooltip,
+    series_pen_style,
     split_label,
     style_plot,
     subshell_style,
 )
+from zeffir.ui._view_frame import ViewFrame
 
 __all__ = ["RadialView"]
 
@@ -132,31 +133,8 @@ class RadialView(QWidget):
             item.hide()
             self._plot.addItem(item, ignoreBounds=True)
 
-        self._readout = QLabel()
-        self._readout.setTextFormat(Qt.TextFormat.RichText)
-        self._readout.setWordWrap(False)  # lines are laid out by _fit_readout
-        # Its text must never hold the view wide: the text is fitted to the width instead.
-        self._readout.setSizePolicy(QSizePolicy.Policy.Ignored, QSizePolicy.Policy.Fixed)
-        self._readout.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop)
-        self._readout.setContentsMargins(8, 2, 8, 4)
-        self._readout.setStyleSheet(f"QLabel {{ background: white; color: {AXIS_COLOUR}; }}")
-        line = self._readout.fontMetrics().lineSpacing()
-        self._readout.setFixedHeight(2 * line + 8)  # two lines, so the plot does not jump
-
-        self._message = QLabel()
-        self._message.setAlignment(Qt.AlignmentFlag.AlignCenter)
-        self._message.setWordWrap(True)
-        self._message.setStyleSheet(f"QLabel {{ background: white; color: {MUTED_TEXT}; padding: 24px; }}")
-
-        page = QWidget()
-        column = QVBoxLayout(page)
-        column.setContentsMargins(0, 0, 0, 0)
-        column.setSpacing(0)
-        column.addWidget(self._plot_widget, 1)
-        column.addWidget(self._readout)
-        self._stack = QStackedLayout(self)
-        self._stack.addWidget(page)
-        self._stack.addWidget(self._message)
+        self._frame = ViewFrame(self, self._plot_widget, wrap_readout=False)  # lines: _fit_readout
+        self._readout = self._frame.readout
 
         self._plot_widget.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._plot.getViewBox().sigResized.connect(self._on_resized)
@@ -184,7 +162,7 @@ class RadialView(QWidget):
             return
         self._clear_drawing()
         self._scene = scene
-        self._stack.setCurrentIndex(0)
+        self._frame.show_plot()
         self._plot.setLogMode(x=scene.log_r, y=False)
         self._plot.setTitle(html.escape(scene.title), color=AXIS_COLOUR, size="11pt")
         self._plot.setLabel("bottom", html.escape(scene.x_label), **label_style())
@@ -192,6 +170,8 @@ class RadialView(QWidget):
         self._set_tooltips(scene)
 
         negative = False
+        several = bool(scene.series_names)
+        legend_subshells: set[str | None] = set()
         for index, curve in enumerate(scene.curves):
             x = np.asarray(curve.x, dtype=float)
             y = np.asarray(curve.y, dtype=float)
@@ -206,18 +186,40 @@ class RadialView(QWidget):
                 width, z, dash = HIGHLIGHT_WIDTH, 3, Qt.PenStyle.SolidLine
             else:
                 width, z = SUBSHELL_WIDTH, 1
+            if several:  # several series on these axes: the line style names the series
+                dash = series_pen_style(curve.series)
             item = pg.PlotDataItem(x, y, pen=make_pen(colour, width, dash), antialias=True)
             item.setZValue(z)
             self._plot.addItem(item)
-            self._add_legend_row(item, html.escape(curve.label))
+            if not several:
+                self._add_legend_row(item, html.escape(curve.label))
+            elif curve.subshell not in legend_subshells:
+                # One row per subshell (its colour) and, below, one per series (its style).
+                legend_subshells.add(curve.subshell)
+                sample = pg.PlotDataItem(pen=make_pen(colour, width))
+                self._legend_samples.append(sample)
+                self._add_legend_row(sample, html.escape(curve.subshell or "total"))
             self._curves[curve.label] = (item, colour, x, y)
             negative = negative or bool(y.size and np.nanmin(y) < 0)
         self._zero_line.setVisible(negative)
+        for number, name in enumerate(scene.series_names):
+            sample = pg.PlotDataItem(pen=make_pen(_LEGEND_SAMPLE_COLOUR, SUBSHELL_WIDTH,
+                                                  series_pen_style(number)))
+            self._legend_samples.append(sample)
+            self._add_legend_row(sample, html.escape(name))
         self._draw_markers(scene)
         self._fit_legend_size()
         self._fit_range()
         self._place_legend()
         self._hide_cursor()
+
+    def set_legend_visible(self, visible: bool) -> None:
+        """Show or hide the legend (a grid of panels with equal curves needs it once)."""
+        self._legend.setVisible(visible)
+
+    def legend_visible(self) -> bool:
+        """True when the legend is shown."""
+        return self._legend.isVisible()
 
     def set_empty_message(self, text: str) -> None:
         """Clear the plot and show ``text`` instead.
@@ -234,8 +236,7 @@ class RadialView(QWidget):
         self._clear_drawing()
         self._scene = None
         self._bounds = None
-        self._message.setText(self._empty_message)
-        self._stack.setCurrentIndex(1)
+        self._frame.show_message(self._empty_message)
 
     def _clear_drawing(self) -> None:
         for item, *_ in self._curves.values():
@@ -254,19 +255,25 @@ class RadialView(QWidget):
         unit = split_label(scene.x_label)[1]
         nodes: dict[str, list[tuple[float, str]]] = {}
         kinds: list[str] = []
+        several = bool(scene.series_names)
         for marker in scene.markers:
             if scene.log_r and marker.x <= 0:
                 continue
+            if several and marker.kind == "mean":
+                continue  # several series: r_max and nodes only, or the lines crowd the plot
             colour, _ = subshell_style(marker.subshell)
             definition = MARKER_TEXT.get(marker.kind, (marker.kind, marker.kind))[1]
-            tip = (f"{marker.subshell} {_MARKER_SYMBOL.get(marker.kind, marker.kind)} at r = "
+            whose = f" ({scene.series_names[marker.series]})" if several else ""
+            tip = (f"{marker.subshell}{whose} {_MARKER_SYMBOL.get(marker.kind, marker.kind)} at r = "
                    f"{format_number(marker.x)} {unit}\n{definition}")
             if marker.kind == "node":
                 nodes.setdefault(colour, []).append((marker.x, tip))
             else:
+                dash = (series_pen_style(marker.series) if several
+                        else _MARKER_DASH.get(marker.kind, Qt.PenStyle.DashLine))
                 line = pg.InfiniteLine(
                     pos=self._view_x(marker.x), angle=90, movable=False,
-                    pen=make_pen(colour, _MARKER_WIDTH, _MARKER_DASH.get(marker.kind, Qt.PenStyle.DashLine)),
+                    pen=make_pen(colour, _MARKER_WIDTH, dash),
                 )
                 line.setToolTip(tip)
                 line.setZValue(5)
@@ -291,7 +298,9 @@ class RadialView(QWidget):
                 sample = pg.ScatterPlotItem(symbol="o", size=_NODE_SIZE - 1,
                                             pen=make_pen(_LEGEND_SAMPLE_COLOUR, 1.6), brush="#ffffff")
             else:
-                pen = make_pen(_LEGEND_SAMPLE_COLOUR, _MARKER_WIDTH, _MARKER_DASH[kind])
+                # Several series: marker lines take the series' style; the sample is plain.
+                pen = make_pen(_LEGEND_SAMPLE_COLOUR, _MARKER_WIDTH,
+                               Qt.PenStyle.SolidLine if several else _MARKER_DASH[kind])
                 sample = pg.PlotDataItem(pen=pen)
             self._legend_samples.append(sample)
             self._add_legend_row(sample, MARKER_TEXT[kind][0])
@@ -599,13 +608,11 @@ class RadialView(QWidget):
 
     def readout_text(self) -> str:
         """The read-out line below the plot, as plain text."""
-        document = QTextDocument()
-        document.setHtml(self._readout.text())
-        return document.toPlainText()
+        return self._frame.readout_text()
 
     def empty_message(self) -> str | None:
         """The message shown instead of a plot, or ``None`` when a scene is drawn."""
-        return self._message.text() if self._stack.currentIndex() == 1 else None
+        return self._frame.shown_message()
 
 
 def _node_tip(x: float, y: float, data: object) -> str:

@@ -21,7 +21,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.scene import SliceScene, model_title
+from zeffir.scene import SliceScene, model_title, sign_colours
 from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     MUTED_TEXT,
@@ -48,6 +48,11 @@ _CONTOUR_FALLBACK_MS: Final = 60
 _LEVEL_COLOUR_SIGNED: Final = "#505050"
 _LEVEL_COLOUR_DENSITY: Final = "#c8c8c8"
 _LEVEL_WIDTH: Final = 0.9
+_BAR_WIDTH: Final = 16  # px, the colour bar's thickness
+_BAR_GAP: Final = 8  # px between the image's axis and its colour bar
+_EDGE: Final = 6.0  # px, the least margin around the plot
+#: A side for the colour bar must win this many pixels of image before the bar moves.
+_SIDE_HYSTERESIS: Final = 6.0
 _ZERO_WIDTH: Final = 1.6
 _CROSSHAIR_COLOUR: Final = "#1a1a1a"
 _OUTSIDE_COLOUR: Final = "#e4e4e4"
@@ -66,12 +71,23 @@ _MOUSE_EVENTS: Final = frozenset({QEvent.Type.MouseButtonPress, QEvent.Type.Mous
                                    QEvent.Type.MouseButtonRelease})
 
 
+class _LinkGroup:
+    """Slice views showing one range of u and v (see :meth:`SliceView.link_axes`)."""
+
+    def __init__(self, view: SliceView) -> None:
+        self.views = [view]
+        self.sharing = False
+
+
 class SliceView(QWidget):
     """A 2D slice through the atom: colour image, colour bar, contours and a read-out.
 
     The image is placed at the scene's coordinates (u across, v up) with equal
-    scales on both axes. Signed ψ uses the diverging map symmetric about zero,
-    densities the sequential one. Contour levels are thin grey (dashed where
+    scales on both axes, and the panel is laid out so that the plot area has the
+    image's square shape and the image fills it: the colour bar sits beside the
+    image in a wide panel and under it in a tall one (see ``_fit_frame``). Signed ψ
+    uses the scene's diverging map symmetric about zero, densities its sequential
+    one (``scene.colour_map``; the exported figure uses the same). Contour levels are thin grey (dashed where
     negative), the zero contour (nodes of ψ) black. Contours are traced right
     after the image is on screen, on a grid of at most
     ``CONTOUR_POINTS``² points, so a new image is never held back by them.
@@ -111,7 +127,12 @@ class SliceView(QWidget):
         self._external_contours = False
         self._contour_levels: tuple[float, ...] = ()
         self._extent: tuple[float, float, int] | None = None
-        self._signed: bool | None = None
+        self._map_key: tuple[bool, str] | None = None
+        # The image frame fitted to the panel (see _fit_frame): extra margins, the bar's
+        # side, the room each bar takes, and whether the user has zoomed or panned.
+        self._margins = (0.0, 0.0)
+        self._fitting = False
+        self._user_range = False
         self._labels: tuple[str, ...] = ()
         self._cursor_shown = False
         self._empty_message = DEFAULT_EMPTY_MESSAGE
@@ -142,11 +163,25 @@ class SliceView(QWidget):
                                           brush=None)
         self._marker.setZValue(15)
         self._plot.addItem(self._marker, ignoreBounds=True)
-        self._colour_bar = pg.ColorBarItem(values=(0.0, 1.0), colorMap=colour_map(True), width=16,
-                                           interactive=False, colorMapMenu=False)
-        # Inserted into the plot's own layout, so the bar spans exactly the image's height.
-        self._colour_bar.setImageItem(self._image, insert_in=self._plot)
-        self._style_colour_bar()
+        # Two colour bars, one shown: beside the image when the panel is wide, under it
+        # when the panel is tall (see _fit_frame). Both are in the plot's own layout, so
+        # a bar spans exactly the image's height or width.
+        self._bars = {
+            side: pg.ColorBarItem(values=(0.0, 1.0), colorMap=colour_map(True), width=_BAR_WIDTH,
+                                  interactive=False, colorMapMenu=False, orientation=side)
+            for side in ("vertical", "horizontal")
+        }
+        for bar in self._bars.values():
+            bar.setImageItem(self._image)
+            self._style_colour_bar(bar)
+        self._orientation = "vertical"
+        self._colour_bar = self._bars["vertical"]
+        self._place_bar("vertical")
+        self._bar_room = {"vertical": 90.0, "horizontal": 64.0}  # estimates until measured
+        self._group = _LinkGroup(self)
+        box.sigResized.connect(self._fit_frame)
+        box.sigRangeChangedManually.connect(self._on_user_range)
+        box.sigRangeChanged.connect(self._share_range)
 
         # Positive (or all, for densities) levels, negative levels, zero: one path each,
         # lines split by NaN.
@@ -217,16 +252,118 @@ class SliceView(QWidget):
         self.setMinimumSize(240, 240)
         self._show_message()
 
-    def _style_colour_bar(self) -> None:
+    @staticmethod
+    def _style_colour_bar(bar: pg.ColorBarItem) -> None:
         for side in ("left", "right", "top", "bottom"):
-            axis = self._colour_bar.getAxis(side)
+            axis = bar.getAxis(side)
             axis.setPen(make_pen(AXIS_COLOUR, 1.0))
             axis.setTextPen(AXIS_COLOUR)
-        values = self._colour_bar.getAxis("right")
+        values = bar.axis  # the right axis of a vertical bar, the bottom one of a horizontal bar
         values.setStyle(tickFont=tick_font(), tickLength=4, maxTickLevel=1)
         values.enableAutoSIPrefix(False)
-        values.setWidth(None)  # wide enough for the tick values and the label beside them
-        self._colour_bar.getAxis("left").setWidth(2)
+        if bar.horizontal:
+            values.setHeight(None)  # tall enough for the tick values and the label under them
+            bar.getAxis("top").setHeight(2)
+        else:
+            values.setWidth(None)  # wide enough for the tick values and the label beside them
+            bar.getAxis("left").setWidth(2)
+
+    # -- framing: the image fills its panel ----------------------------------------------
+
+    def _place_bar(self, orientation: str) -> None:
+        """Put the colour bar of ``orientation`` into the plot's layout and take the other out."""
+        layout = self._plot.layout
+        for side, bar in self._bars.items():
+            if side != orientation and bar.parentItem() is not None:
+                layout.removeItem(bar)
+                bar.setParentItem(None)
+                bar.hide()
+        bar = self._bars[orientation]
+        if orientation == "vertical":
+            layout.addItem(bar, 2, 5)  # after the right-hand axis, as tall as the image
+            layout.setColumnFixedWidth(4, _BAR_GAP)
+            layout.setRowFixedHeight(4, 0)
+        else:
+            layout.addItem(bar, 5, 1)  # under the bottom axis, as wide as the image
+            layout.setRowFixedHeight(4, _BAR_GAP)
+            layout.setColumnFixedWidth(4, 0)
+        bar.show()
+        self._orientation = orientation
+        self._colour_bar = bar
+
+    def _fit_frame(self) -> None:
+        """Lay the panel out so the plot area has the image's (square) shape, and fill it.
+
+        The plot area takes what the axes, title and colour bar leave; white margins
+        around the plot take up any difference between its width and height, so the
+        image keeps true proportions with no grey padding beside it. The colour bar
+        goes under the image when that leaves a larger square than beside it (a panel
+        taller than wide, such as one of three in a row), else to its right.
+        """
+        if self._fitting:
+            return
+        self._fitting = True
+        try:
+            for _ in range(3):  # a change of side moves the axes once more; then it is stable
+                if not self._fit_once():
+                    break
+                self._plot.layout.activate()
+                self._graphics.ci.layout.activate()
+            if not self._user_range and not self._frame.rect().isEmpty():
+                # Settle the range on the image again: while the layout moved, the locked
+                # aspect (and the views linked to this one) may have widened it.
+                self._plot.getViewBox().setRange(self._frame.rect(), padding=0.0)
+        finally:
+            self._fitting = False
+
+    def _fit_once(self) -> bool:
+        """One step of :meth:`_fit_frame`; True if it changed the layout."""
+        box = self._plot.getViewBox().geometry()
+        if box.width() < 8 or box.height() < 8:
+            return False
+        bar = self._bars[self._orientation].geometry()
+        if self._orientation == "vertical":
+            self._bar_room["vertical"] = bar.width() + _BAR_GAP
+        else:
+            self._bar_room["horizontal"] = bar.height() + _BAR_GAP
+        mx, my = self._margins
+        width, height = box.width() + 2 * mx, box.height() + 2 * my  # without the margins
+        if self._orientation == "vertical":
+            other = (width + self._bar_room["vertical"], height - self._bar_room["horizontal"])
+        else:
+            other = (width - self._bar_room["vertical"], height + self._bar_room["horizontal"])
+        if min(other) > min(width, height) + _SIDE_HYSTERESIS:
+            self._place_bar("horizontal" if self._orientation == "vertical" else "vertical")
+            self._set_margins(0.0, 0.0)
+            return True
+        side = min(width, height)
+        new = (0.5 * (width - side), 0.5 * (height - side))
+        if max(abs(new[0] - mx), abs(new[1] - my)) < 0.5:
+            return False
+        self._set_margins(*new)
+        return True
+
+    def _set_margins(self, mx: float, my: float) -> None:
+        self._margins = (mx, my)
+        self._graphics.ci.setContentsMargins(_EDGE + mx, _EDGE + my, _EDGE + mx, _EDGE + my)
+
+    def _on_user_range(self, *_args: object) -> None:
+        for view in self._group.views:  # a zoom in one panel is a zoom in all linked ones
+            view._user_range = True
+
+    def _share_range(self, *_args: object) -> None:
+        """Give the linked views this view's range (see :meth:`link_axes`)."""
+        group = self._group
+        if group.sharing or len(group.views) == 1:
+            return
+        group.sharing = True
+        try:
+            rect = self._plot.getViewBox().viewRect()
+            for view in group.views:
+                if view is not self:
+                    view._plot.getViewBox().setRange(rect, padding=0.0)
+        finally:
+            group.sharing = False
 
     # -- drawing -------------------------------------------------------------------------
 
@@ -258,17 +395,24 @@ class SliceView(QWidget):
         rect = QRectF(start, start, n * step, n * step)
         self._image.setRect(rect)
         self._frame.setRect(rect)
-        if self._signed != scene.signed:
-            self._colour_bar.setColorMap(colour_map(scene.signed))
-            self._signed = scene.signed
-            # Dark grey reads on the light diverging map, light grey on dark viridis.
-            colour = _LEVEL_COLOUR_SIGNED if scene.signed else _LEVEL_COLOUR_DENSITY
-            self._contour_items[0].setPen(make_pen(colour, _LEVEL_WIDTH))
-            self._contour_items[1].setPen(make_pen(colour, _LEVEL_WIDTH, Qt.PenStyle.DashLine))
-        self._colour_bar.setLevels((low, high))
+        key = (scene.signed, scene.colour_map)
+        if self._map_key != key:
+            cmap = colour_map(scene.signed, scene.colour_map)
+            for bar in self._bars.values():
+                bar.setColorMap(cmap)
+            if self._map_key is None or self._map_key[0] != scene.signed:
+                # Dark grey reads on the light middle of a diverging map, light grey on the
+                # dark low end of the sequential ones.
+                colour = _LEVEL_COLOUR_SIGNED if scene.signed else _LEVEL_COLOUR_DENSITY
+                self._contour_items[0].setPen(make_pen(colour, _LEVEL_WIDTH))
+                self._contour_items[1].setPen(make_pen(colour, _LEVEL_WIDTH, Qt.PenStyle.DashLine))
+            self._map_key = key
+        for bar in self._bars.values():
+            bar.setLevels((low, high))
         extent = (float(coordinates[0]), float(coordinates[-1]), n)
         if extent != self._extent:
             self._extent = extent
+            self._user_range = False
             self._plot.getViewBox().setRange(rect, padding=0.0)
         self._set_labels(scene)
         if scene.marker is not None:
@@ -293,19 +437,20 @@ class SliceView(QWidget):
             self._title.setText(title)
             self._title.setToolTip(f"{scene.spec} under {model_title(scene.model)}; "
                                    f"{scene.plane_text}")
-        labels = (*scene.axis_labels, scene.value_label, scene.quantity)
+        labels = (*scene.axis_labels, scene.value_label, scene.quantity, scene.colour_map)
         if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
             return
         self._labels = labels
         self._plot.setLabel("bottom", html.escape(scene.axis_labels[0]), **label_style())
         self._plot.setLabel("left", html.escape(scene.axis_labels[1]), **label_style())
-        bar_axis = self._colour_bar.getAxis("right")
-        bar_axis.setLabel(html.escape(scene.value_label), **label_style())
         value_tip = quantity_tooltip(scene.quantity, scene.value_label)
         if scene.signed:
-            value_tip += "\nRed positive, blue negative; black line: ψ = 0 (node)"
-        for item in (bar_axis, bar_axis.label, self._colour_bar):
-            item.setToolTip(value_tip)
+            positive, negative = sign_colours(scene.colour_map)
+            value_tip += f"\n{positive.capitalize()} positive, {negative} negative; black line: ψ = 0 (node)"
+        for bar in self._bars.values():
+            bar.axis.setLabel(html.escape(scene.value_label), **label_style())
+            for item in (bar.axis, bar.axis.label, bar):
+                item.setToolTip(value_tip)
         self._readout.setToolTip(value_tip)
         for side, name in (("bottom", scene.axis_labels[0]), ("left", scene.axis_labels[1])):
             symbol, unit = split_label(name)
@@ -351,7 +496,8 @@ class SliceView(QWidget):
         """
         if not (math.isfinite(low) and math.isfinite(high) and high > low):
             raise ValueError(f"colour range: need finite low < high, got ({low}, {high})")
-        self._colour_bar.setLevels((float(low), float(high)))
+        for bar in self._bars.values():
+            bar.setLevels((float(low), float(high)))
 
     def set_point_of(self, point_of: PointOf | None) -> None:
         """Let the read-out show Cartesian coordinates too.
@@ -613,11 +759,21 @@ class SliceView(QWidget):
         Parameters
         ----------
         other : SliceView
-            The view to follow and be followed by.
+            The view to follow and be followed by (and every view linked to it).
+
+        Notes
+        -----
+        Linked views show the same range of u and v. pyqtgraph's own axis links line
+        views up by screen pixel, which shifts the range of panels side by side whose
+        plot areas differ by a pixel; the range is copied instead.
         """
-        if other is not self:
-            self._plot.setXLink(other._plot)
-            self._plot.setYLink(other._plot)
+        if other is self or other._group is self._group:
+            return
+        group = self._group
+        for view in other._group.views:
+            view._group = group
+            group.views.append(view)
+        self._share_range()
 
     @Slot(float, float)
     def show_cursor(self, u: float, v: float) -> None:
@@ -726,6 +882,35 @@ class SliceView(QWidget):
         """The (low, high) image values mapped to the ends of the colour map."""
         levels = self._image.getLevels()
         return float(levels[0]), float(levels[1])
+
+    def colour_bar_ends(self) -> tuple[str, str]:
+        """Hex colours ``('#rrggbb', ...)`` of the low and the high end of the colour bar as drawn."""
+        picture = self._colour_bar.bar.pixmap().toImage()
+        low = picture.pixelColor(0, 0)
+        high = picture.pixelColor(picture.width() - 1, picture.height() - 1)
+        return low.name(), high.name()
+
+    def colour_bar_orientation(self) -> str:
+        """``"vertical"`` (bar beside the image) or ``"horizontal"`` (under it)."""
+        return self._orientation
+
+    def _on_screen(self, rect: QRectF) -> tuple[float, float, float, float]:
+        area = self._graphics.mapFromScene(rect).boundingRect()
+        return float(area.x()), float(area.y()), float(area.width()), float(area.height())
+
+    def image_on_screen(self) -> tuple[float, float, float, float]:
+        """(x, y, width, height) in pixels of the drawing area: the part of the image in view."""
+        box = self._plot.getViewBox()
+        image = self._image.mapRectToScene(self._image.boundingRect())
+        return self._on_screen(image.intersected(box.sceneBoundingRect()))
+
+    def plot_area_on_screen(self) -> tuple[float, float, float, float]:
+        """(x, y, width, height) in pixels of the drawing area: the framed plot area."""
+        return self._on_screen(self._plot.getViewBox().sceneBoundingRect())
+
+    def drawing_area_size(self) -> tuple[int, int]:
+        """(width, height) in pixels of the drawing area (the panel less its title and read-out)."""
+        return self._graphics.width(), self._graphics.height()
 
     def contour_count(self) -> int:
         """How many contour levels are drawn (the zero contour included)."""

@@ -25,7 +25,10 @@ COLUMNS: tuple[tuple[str, str], ...] = (
     ("⟨r²⟩", "⟨r²⟩ = ∫ r² · r²R² dr (diamagnetic susceptibility, size)"),
     ("⟨1/r⟩", "⟨1/r⟩ = ∫ r⁻¹ · r²R² dr (nuclear attraction, electron density at the nucleus scale)"),
     ("⟨r⁻³⟩", "⟨r⁻³⟩ = ∫ r⁻³ · r²R² dr (spin–orbit and hyperfine integrals; infinite for s)"),
+    ("Series", "Which atom and model the row belongs to (when several are compared)"),
 )
+#: The series column: last in the model, shown second (after Subshell) when there are several.
+SERIES_COLUMN: int = 11
 #: Columns 8–10 (the further radial moments) are shown on request.
 MOMENT_COLUMNS: tuple[int, ...] = (8, 9, 10)
 
@@ -64,11 +67,36 @@ class SubshellTable(QTableWidget):
         self.addAction(copy)
         self.setContextMenuPolicy(Qt.ContextMenuPolicy.ActionsContextMenu)
         self._rows: list[SubshellSummary] = []
+        self._series: list[str] = []
+        self.horizontalHeader().moveSection(SERIES_COLUMN, 1)
+        self.setColumnHidden(SERIES_COLUMN, True)
         self._units = ("bohr", "Eh")
         self.itemSelectionChanged.connect(self._on_selection)
 
     def show_rows(self, rows: list[SubshellSummary], selected: str, length_unit: str) -> None:
-        """Fill the table (atomic units converted for display) and select ``selected``."""
+        """Fill the table with one series (atomic units converted for display); select ``selected``."""
+        self.show_series([("", rows)], selected, length_unit)
+
+    def show_series(self, series: list[tuple[str, list[SubshellSummary]]], selected: str,
+                    length_unit: str) -> None:
+        """Fill the table with several series: rows grouped by subshell, one per series.
+
+        Parameters
+        ----------
+        series : list of (name, rows)
+            Each series' name (shown in the Series column when there are two or more)
+            and its subshell rows.
+        selected : str
+            Subshell whose (first) row is selected.
+        length_unit : {"bohr", "angstrom"}
+            Display units (Å and eV, or bohr and hartree).
+        """
+        order = list(dict.fromkeys(row.label for _, rows in series for row in rows))
+        placed = [(name, row) for label in order for name, rows in series
+                  for row in rows if row.label == label]
+        rows = [row for _, row in placed]
+        self._series = [name for name, _ in placed]
+        self.setColumnHidden(SERIES_COLUMN, len(series) < 2)
         self._rows = rows
         angstrom = length_unit == "angstrom"
         length = ANGSTROM_PER_BOHR if angstrom else 1.0
@@ -77,7 +105,7 @@ class SubshellTable(QTableWidget):
         lu, eu = self._units
         headers = ["Subshell", "Electrons", f"ζ / {lu}⁻¹", "Z_eff", "n*", f"⟨r⟩ / {lu}",
                    f"r_max / {lu}", f"ε / {eu}", f"⟨r²⟩ / {lu}²", f"⟨1/r⟩ / {lu}⁻¹",
-                   f"⟨r⁻³⟩ / {lu}⁻³"]
+                   f"⟨r⁻³⟩ / {lu}⁻³", "Series"]
         for column, text in enumerate(headers):
             header = self.horizontalHeaderItem(column)
             if header is not None:
@@ -89,7 +117,7 @@ class SubshellTable(QTableWidget):
                      _num(row.n_star, 1), _num(row.r_mean * length), _num(row.r_max * length),
                      _num(None if row.energy is None else row.energy * energy),
                      _num(_moment(row, 2) * length**2), _num(_moment(row, -1) / length),
-                     _num(_moment(row, -3) / length**3)]
+                     _num(_moment(row, -3) / length**3), self._series[i]]
             for column, text in enumerate(cells):
                 item = QTableWidgetItem(text)
                 align = Qt.AlignmentFlag.AlignLeft if column == 0 else Qt.AlignmentFlag.AlignRight
@@ -98,7 +126,7 @@ class SubshellTable(QTableWidget):
                     item.setToolTip("\n".join(row.notes))
                     item.setText(f"{text} *")
                 self.setItem(i, column, item)
-            if row.label == selected:
+            if row.label == selected and (i == 0 or rows[i - 1].label != selected):
                 self.selectRow(i)
         self.blockSignals(False)
 
@@ -122,7 +150,9 @@ class SubshellTable(QTableWidget):
     def as_text(self) -> str:
         """The table as tab-separated text with a header row (what Copy puts on the clipboard)."""
         headers = [self.horizontalHeaderItem(c).text() for c in range(self.columnCount())]
-        shown = [c for c in range(self.columnCount()) if not self.isColumnHidden(c)]
+        header = self.horizontalHeader()
+        shown = [header.logicalIndex(v) for v in range(self.columnCount())
+                 if not self.isColumnHidden(header.logicalIndex(v))]
         lines = ["\t".join(headers[c] for c in shown)]
         for r in range(self.rowCount()):
             cells = []

@@ -105,8 +105,16 @@ class RadialFunction(ABC):
 
         The maximum is bracketed on a grid, then located as the root of the
         symmetric difference P(r(1+δ)) - P(r(1-δ)) — a zero of P' — which is far
-        better conditioned than searching the flat top of D itself.
+        better conditioned than searching the flat top of D itself. The value is
+        remembered: a radial function does not change once made.
         """
+        cached = self.__dict__.get("_r_max_found")
+        if cached is None:
+            cached = self._locate_r_max()
+            self.__dict__["_r_max_found"] = cached
+        return float(cached)
+
+    def _locate_r_max(self) -> float:
         from scipy import optimize
 
         r = self.quadrature_grid(20001)
