@@ -110,7 +110,54 @@ def main(out: Path) -> int:
     live.grab().save(str(out / "19-cancelled-1280x720.png"))
     print(out / "19-cancelled-1280x720.png")
     live.worker.shutdown()
+    matrix(out, settings)
     return 0
+
+
+def matrix(out: Path, settings: object) -> None:
+    """Every view at 1600×1000 and 1280×720, before and after a failed build; four series."""
+    from PySide6.QtWidgets import QApplication
+
+    from zeffir.state import CompareSettings, OrbitalChoice, Source, ViewState
+    from zeffir.ui._main_window import MainWindow
+
+    app = QApplication.instance()
+    failing = Source("Be-", "hartree-fock")
+    atoms = {"radial": (Source("Fe", "slater"), OrbitalChoice("3d")),
+             "slice": (Source("Fe", "slater"), OrbitalChoice("3d", "real", -2)),
+             "pair": (Source("N", "slater"), OrbitalChoice("2p")),
+             "two-electron": (Source("Li+ 1s1 2s1", "hydrogenic"), OrbitalChoice("2s")),
+             "terms": (Source("Fe", "slater"), OrbitalChoice("3d"))}
+    four = CompareSettings(True, Source("Fe", "clementi"), True, True,
+                           more=(Source("", "hydrogenic"), Source("Co", "slater")))
+    for width, height in ((1600, 1000), (1280, 720)):
+        window = MainWindow(ViewState(), synchronous=True, settings=settings)  # type: ignore[arg-type]
+        window.resize(width, height)
+        window.show()
+
+        def shot(name: str, w: MainWindow = window, size: str = f"{width}x{height}") -> None:
+            for _ in range(5):
+                app.processEvents()  # type: ignore[union-attr]
+            path = out / f"m-{size}-{name}.png"
+            w.grab().save(str(path))
+            print(path, "|", w.problem() or "current")
+
+        for view, (source, orbital) in atoms.items():
+            window.apply(ViewState(left=source, orbital=orbital, view=view))  # type: ignore[arg-type]
+            shot(f"{view}-before")
+            window.apply(window.state.with_changes(left=failing))
+            shot(f"{view}-after-failed-build")
+        window.apply(ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d"), compare=four))
+        shot("radial-four-series")
+        window.apply(window.state.with_changes(compare=CompareSettings(**{**four.__dict__, "overlay": True})))
+        shot("radial-four-series-overlaid")
+        window.apply(window.state.with_changes(view="slice", orbital=OrbitalChoice("3d", "real", 0)))
+        shot("slice-four-series")
+        window.apply(ViewState(left=Source("Na", "slater"), orbital=OrbitalChoice("3s"),
+                               compare=CompareSettings(True, Source("Na", "clementi"))))
+        shot("radial-two-series-with-difference")
+        window.worker.shutdown()
+        window.close()
 
 
 if __name__ == "__main__":

@@ -109,3 +109,33 @@ def test_a_failing_series_leaves_a_standing_message_and_blocks_export(window, tm
     assert window.export_figure(tmp_path / "x.png") is False
     assert not (tmp_path / "x.png").exists()
     assert "Be-" in window.energy_line.text() and "failed" in window.energy_line.text()
+
+
+@pytest.mark.qt_log_ignore("This plugin does not support propagateSizeHints")
+def test_the_grid_shape_follows_the_room_and_panels_keep_a_common_range(make_window, qtbot):
+    window = make_window(ViewState(left=Source("Fe", "slater"), orbital=OrbitalChoice("3d", "real", -2),
+                                   view="slice", slice=SliceSettings(resolution=40, fit_extent=True)))
+    window.resize(1280, 720)
+    window.show()
+    qtbot.waitExposed(window)
+    four = CompareSettings(True, Source("Fe", "clementi"), True, True,
+                           more=(Source("", "hydrogenic"), Source("Co", "slater")))
+    window.apply(window.state.with_changes(view="radial", compare=four))
+    qtbot.wait(50)
+    assert window.radial_trio.columns() == 4  # a wide, low area: one row beats 2 × 2
+    ranges = {tuple(round(v, 9) for v in view._plot.getViewBox().viewRange()[1])
+              for view in window.radial_trio.views}
+    assert len(ranges) == 1  # every series panel on one value axis
+    low, high = ranges.pop()
+    tallest = max(float(c.y.max()) for view in window.radial_trio.views
+                  for c in view._scene.curves)
+    assert low <= 0.0 and high >= tallest  # and no panel's curve is cut off
+    window.apply(window.state.with_changes(view="slice"))
+    qtbot.wait(50)
+    for view in window.slice_trio.views:  # each image lies inside its own panel
+        box = view._plot.getViewBox()
+        assert box.width() <= view.width() and box.height() <= view.height()
+        assert box.width() > 0.5 * view.width()
+    window.resize(1280, 1000)
+    qtbot.wait(50)
+    assert window.slice_trio.columns() == 2  # a taller area: two rows of two

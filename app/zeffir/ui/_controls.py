@@ -155,6 +155,7 @@ class ViewControls(QWidget):
         normal_layout = QHBoxLayout(normal_row)
         normal_layout.setContentsMargins(0, 0, 0, 0)
         for spin in self.normal:
+            spin.setMinimumWidth(56)
             normal_layout.addWidget(spin)
         self.offset = _spin(*_OFFSET_RANGE, 0.1, 3, " bohr")
         self.offset.setToolTip("Signed distance of the plane from the nucleus along its normal")
@@ -231,6 +232,7 @@ class ViewControls(QWidget):
         reference_layout.setContentsMargins(0, 0, 0, 0)
         for spin, axis in zip(self.reference, "xyz", strict=True):
             spin.setToolTip(f"{axis} of the reference electron r₁")
+            spin.setMinimumWidth(64)  # three in a row: the side panel stays narrow
             reference_layout.addWidget(spin)
         self.spin_box = QComboBox()
         self.spin_box.addItem("↑ (spin up, α)", "up")

@@ -7,7 +7,7 @@ from pathlib import Path
 from typing import Any
 
 from PySide6.QtCore import QSettings, Qt, QTimer, Slot
-from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
+from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence, QResizeEvent
 from PySide6.QtWidgets import (
     QAbstractButton,
     QDockWidget,
@@ -58,6 +58,8 @@ __all__ = ["MainWindow"]
 
 #: Contour lines are traced this long after a new slice image (so the image paints first).
 CONTOUR_DELAY_MS = 25
+#: Pixels a panel's frame takes across and down (axes, colour bar; title, read-out).
+PANEL_FRAME: tuple[float, float] = (110.0, 130.0)
 #: A view still computing says so on its picture after this long (quick redraws stay quiet).
 BUSY_BANNER_DELAY_MS = 400
 
@@ -182,6 +184,7 @@ class _PanelGrid(QWidget):
         else:  # radial differences are small: share r only, not the value axis
             self.difference_view.link_axes(first, y=False)  # type: ignore[call-arg]
         self._shown: list[RadialView | SliceView] = []
+        self._columns = 0
         self.set_panels(1, False)
 
     @property
@@ -194,19 +197,54 @@ class _PanelGrid(QWidget):
         shown = [*self.series_views[:series], *([self.difference_view] if difference else [])]
         if shown == self._shown:
             return
+        self._shown = shown
+        self._columns = 0
+        self._arrange()
+
+    def columns(self) -> int:
+        """Panels per row as laid out now."""
+        return self._columns
+
+    def _best_columns(self) -> int:
+        """Panels per row that give each panel's plot the largest square, with no empty row.
+
+        Each panel loses about :data:`PANEL_FRAME` pixels across (axis, colour bar) and
+        down (title, axis, read-out) to its frame; in a wide, low area (a 1280×720
+        window) four panels in one row beat a 2 × 2 grid.
+        """
+        count = len(self._shown)
+        width, height = max(self.width(), 1), max(self.height(), 1)
+        best: tuple[float, int] | None = None
+        for rows in range(1, count + 1):
+            columns = -(-count // rows)
+            if columns * (rows - 1) >= count:
+                continue  # a row would stay empty
+            side = min(width / columns - PANEL_FRAME[0], height / rows - PANEL_FRAME[1])
+            if best is None or side > best[0] + 1.0:
+                best = (side, columns)
+        return best[1] if best is not None else 1
+
+    def _arrange(self) -> None:
+        columns = self._best_columns()
+        if columns == self._columns:
+            return
+        self._columns = columns
         for view in self.all_views:
             self._layout.removeWidget(view)
             view.setVisible(False)
-        columns = len(shown) if len(shown) <= 3 else (len(shown) + 1) // 2
-        for index, view in enumerate(shown):
+        for index, view in enumerate(self._shown):
             self._layout.addWidget(view, index // columns, index % columns)
             view.setVisible(True)
-        for column in range(3):
+        for column in range(MAX_SERIES + 1):
             self._layout.setColumnStretch(column, 1 if column < columns else 0)
-        self._shown = shown
-        for view in shown:
+        for view in self._shown:
             if isinstance(view, RadialView):
                 view.refit()
+
+    def resizeEvent(self, event: QResizeEvent) -> None:  # Qt override
+        super().resizeEvent(event)
+        if self._shown:
+            self._arrange()
 
 
 class MainWindow(QMainWindow):
@@ -296,12 +334,13 @@ class MainWindow(QMainWindow):
         self.energy_line.setToolTip("Total energy where the model defines one; for Hartree–Fock the "
                                     "correlation energy E_exact − E_HF where an exact energy is published")
         self.energy_line.setContentsMargins(6, 2, 6, 2)
+        self.energy_line.setWordWrap(True)
+        self.energy_line.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         table_box = QWidget()
         table_layout = QVBoxLayout(table_box)
         table_layout.setContentsMargins(0, 0, 0, 0)
         table_layout.setSpacing(0)
         table_layout.addWidget(self.table, 1)
-        table_layout.addWidget(self.energy_line)
         self.notes_area = QLabel()
         self.notes_area.setObjectName("notesArea")
         self.notes_area.setWordWrap(True)
@@ -310,11 +349,22 @@ class MainWindow(QMainWindow):
         self.notes_area.setContentsMargins(6, 0, 6, 2)
         self.notes_area.setToolTip("Where the configuration comes from, and what the model notes "
                                    "about it (fallbacks, the term solved, extensions of its rules)")
+        # Energy lines (one per series) and notes scroll together in a strip of fixed
+        # height, so that a comparison of many series leaves the views their room.
+        numbers = QWidget()
+        numbers_layout = QVBoxLayout(numbers)
+        numbers_layout.setContentsMargins(0, 0, 0, 0)
+        numbers_layout.setSpacing(2)
+        numbers_layout.addWidget(self.energy_line)
+        numbers_layout.addWidget(self.notes_area)
+        numbers_layout.addStretch(1)
         notes_scroll = QScrollArea()
-        notes_scroll.setWidget(self.notes_area)
+        notes_scroll.setWidget(numbers)
         notes_scroll.setWidgetResizable(True)
         notes_scroll.setFrameShape(QFrame.Shape.NoFrame)
-        notes_scroll.setMaximumHeight(64)
+        notes_scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
+        line = self.energy_line.fontMetrics().lineSpacing()
+        notes_scroll.setFixedHeight(5 * line + 8)
         table_layout.addWidget(notes_scroll)
         self.banner = QFrame()
         self.banner.setObjectName("staleBanner")
@@ -619,10 +669,13 @@ class MainWindow(QMainWindow):
         for view, scene in zip(trio.views, parts, strict=False):
             view.set_scene(scene)
         if key == JobKey.RADIAL:
+            for view in trio.views:  # every panel has its new curves: fit them together
+                view.refit()  # type: ignore[union-attr]
             # Four or more panels are small: a legend equal to the first panel's is left out.
-            labels = [[c.label for c in p.curves] for p in parts]
+            # Subshell colours are the same in every panel, so the first legend serves all.
+            subshells = [[c.subshell for c in p.curves] for p in parts]
             for index, view in enumerate(trio.views[:len(parts)]):
-                repeated = index > 0 and labels[index] == labels[0] and len(parts) > 3
+                repeated = index > 0 and subshells[index] == subshells[0] and len(parts) > 3
                 view.set_legend_visible(not repeated)  # type: ignore[union-attr]
         if self._profile_segment is not None and self._profile_segment[0] == key:
             # The profile follows a new orbital, model or plane under the same segment.

@@ -106,6 +106,7 @@ class RadialView(QWidget):
         # Linked views: (view, x linked, y linked).
         self._peers: list[tuple[weakref.ref[RadialView], bool, bool]] = []
         self._bounds: tuple[float, float, float, float] | None = None
+        self._copying = False  # taking a linked view's range (see _copy_range)
         self._cursor_shown = False
         self._empty_message = DEFAULT_EMPTY_MESSAGE
 
@@ -139,7 +140,7 @@ class RadialView(QWidget):
         self._plot_widget.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._plot.getViewBox().sigResized.connect(self._on_resized)
         self._plot_widget.viewport().installEventFilter(self)
-        self.setMinimumSize(240, 240)
+        self.setMinimumSize(200, 170)  # two rows of panels fit 720 px
         self._show_message()
 
     # -- drawing -------------------------------------------------------------------------
@@ -166,7 +167,8 @@ class RadialView(QWidget):
         self._plot.setLogMode(x=scene.log_r, y=False)
         self._plot.setTitle(html.escape(scene.title), color=AXIS_COLOUR, size="11pt")
         self._plot.setLabel("bottom", html.escape(scene.x_label), **label_style())
-        self._plot.setLabel("left", html.escape(scene.y_label), **label_style())
+        self._y_label_short: bool | None = None  # forces the label to be set
+        self._fit_y_label()
         self._set_tooltips(scene)
 
         negative = False
@@ -220,6 +222,14 @@ class RadialView(QWidget):
     def legend_visible(self) -> bool:
         """True when the legend is shown."""
         return self._legend.isVisible()
+
+    def legend_columns(self) -> int:
+        """Columns the legend's rows are set in (more than one in a short panel)."""
+        return int(self._legend.columnCount)
+
+    def legend_fits(self) -> bool:
+        """True when the legend is no taller than the plot area."""
+        return self._legend.boundingRect().height() <= self._plot.getViewBox().height() + 1.0
 
     def set_empty_message(self, text: str) -> None:
         """Clear the plot and show ``text`` instead.
@@ -313,8 +323,15 @@ class RadialView(QWidget):
 
     def _fit_legend_size(self) -> None:
         # The legend sizes itself row by row from its rows' current, possibly stretched,
-        # heights; size it from the layout's own preferred size instead.
-        hint = self._legend.layout.effectiveSizeHint(Qt.SizeHint.PreferredSize)
+        # heights; size it from the layout's own preferred size instead. In a short panel
+        # (a grid of series) the rows go into as many columns as it takes to fit.
+        box_height = self._plot.getViewBox().height() or 400.0
+        for columns in (1, 2, 3):
+            if self._legend.columnCount != columns:
+                self._legend.setColumnCount(columns)
+            hint = self._legend.layout.effectiveSizeHint(Qt.SizeHint.PreferredSize)
+            if hint.height() <= 0.92 * box_height:
+                break
         self._legend.setGeometry(QRectF(0.0, 0.0, hint.width(), hint.height()))
 
     def _place_legend(self) -> None:
@@ -354,8 +371,24 @@ class RadialView(QWidget):
         offset = (-10 if fx == 1.0 else 10 if fx == 0.0 else 0, 8 - 16 * fy)
         self._legend.anchor(itemPos=(fx, fy), parentPos=(fx, fy), offset=offset)
 
+    def _fit_y_label(self) -> None:
+        """The value axis label; in a short panel without its weighting phrase (kept in the tip)."""
+        if self._scene is None:
+            return
+        text = self._scene.y_label
+        metrics = self._readout.fontMetrics()
+        short = ", " in text and metrics.horizontalAdvance(text) * 1.1 > self._plot.getViewBox().height()
+        if short == getattr(self, "_y_label_short", None):
+            return
+        self._y_label_short = short
+        shown = text.split(", ", 1)[0] if short else text
+        self._plot.setLabel("left", html.escape(shown), **label_style())
+
     def _on_resized(self) -> None:
+        if self._scene is not None:
+            self._fit_y_label()
         if self._curves:
+            self._fit_legend_size()
             self._place_legend()
 
     def _set_tooltips(self, scene: RadialScene) -> None:
@@ -391,10 +424,15 @@ class RadialView(QWidget):
         """
         if other is self:
             return
-        if x:
-            self._plot.setXLink(other._plot)
-        if y:
-            self._plot.setYLink(other._plot)
+        # A plain copy of the range both ways; pyqtgraph's own links line views up by
+        # their position on screen, which shifts the range of panels in another row.
+        for source, target in ((self, other), (other, self)):
+            box = source._plot.getViewBox()
+            ref = weakref.ref(target)
+            if x:
+                box.sigXRangeChanged.connect(lambda _box, span, t=ref: _copy_range(t, 0, span))
+            if y:
+                box.sigYRangeChanged.connect(lambda _box, span, t=ref: _copy_range(t, 1, span))
         self._peers.append((weakref.ref(other), x, y))
         other._peers.append((weakref.ref(self), x, y))
         self._bounds = None
@@ -613,6 +651,24 @@ class RadialView(QWidget):
     def empty_message(self) -> str | None:
         """The message shown instead of a plot, or ``None`` when a scene is drawn."""
         return self._frame.shown_message()
+
+
+def _copy_range(target: weakref.ref[RadialView], axis: int, span: tuple[float, float]) -> None:
+    """Give a linked view the range another view just took (once: no echo back)."""
+    view = target()
+    if view is None or view._copying:
+        return
+    box = view._plot.getViewBox()
+    if tuple(box.viewRange()[axis]) == tuple(span):
+        return
+    view._copying = True
+    try:
+        if axis == 0:
+            box.setXRange(*span, padding=0.0)
+        else:
+            box.setYRange(*span, padding=0.0)
+    finally:
+        view._copying = False
 
 
 def _node_tip(x: float, y: float, data: object) -> str:

@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from PySide6.QtCore import Signal
-from PySide6.QtWidgets import QHBoxLayout, QPushButton, QToolButton, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QComboBox, QHBoxLayout, QPushButton, QToolButton, QVBoxLayout, QWidget
 
 from zeffir.core import DEFAULT_MODEL, model_names
 from zeffir.state import MAX_SERIES, Source
@@ -51,6 +51,8 @@ class SeriesList(QWidget):
         while len(self._rows) > len(sources):
             row, _ = self._rows.pop()
             self._column.removeWidget(row)
+            row.hide()  # at once: deleteLater waits for the event loop
+            row.setParent(None)
             row.deleteLater()
         while len(self._rows) < len(sources):
             self._append_row()
@@ -67,6 +69,9 @@ class SeriesList(QWidget):
         fields.spec_edit.setPlaceholderText("main atom")
         fields.spec_edit.setMinimumWidth(80)
         fields.message.setWordWrap(True)
+        # The side panel is narrow: the model chooser may be narrower than its longest item.
+        fields.model_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        fields.model_box.setMinimumContentsLength(10)
         remove = QToolButton()
         remove.setText("✕")
         remove.setToolTip(f"Remove series {number}")

@@ -10,14 +10,12 @@ from typing import Any, Final
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QEvent, QObject, QPoint, QPointF, QRectF, Qt, QTimer, Signal, Slot
-from PySide6.QtGui import QMouseEvent, QTextDocument
+from PySide6.QtGui import QMouseEvent, QResizeEvent, QShowEvent
 from PySide6.QtWidgets import (
     QApplication,
     QGraphicsRectItem,
     QLabel,
     QSizePolicy,
-    QStackedLayout,
-    QVBoxLayout,
     QWidget,
 )
 
@@ -34,6 +32,7 @@ from zeffir.ui._plot_style import (
     style_plot,
     tick_font,
 )
+from zeffir.ui._view_frame import ViewFrame
 
 __all__ = ["PROFILE_HINT", "PointOf", "SliceView"]
 
@@ -208,19 +207,6 @@ class SliceView(QWidget):
             line.hide()
             self._plot.addItem(line, ignoreBounds=True)
 
-        self._readout = QLabel()
-        self._readout.setTextFormat(Qt.TextFormat.RichText)
-        self._readout.setWordWrap(True)
-        self._readout.setSizePolicy(QSizePolicy.Policy.Ignored, QSizePolicy.Policy.Fixed)
-        self._readout.setContentsMargins(8, 2, 8, 4)
-        self._readout.setStyleSheet(f"QLabel {{ background: white; color: {AXIS_COLOUR}; }}")
-        self._readout.setFixedHeight(2 * self._readout.fontMetrics().lineSpacing() + 8)
-
-        self._message = QLabel()
-        self._message.setAlignment(Qt.AlignmentFlag.AlignCenter)
-        self._message.setWordWrap(True)
-        self._message.setStyleSheet(f"QLabel {{ background: white; color: {MUTED_TEXT}; padding: 24px; }}")
-
         # The title is a plain label above the plot: changing its text (every new plane
         # offset, orbital or model) then never re-lays out the plot and its axes.
         self._title = QLabel()
@@ -230,17 +216,15 @@ class SliceView(QWidget):
         self._title.setStyleSheet("QLabel { background: white; }")
         self._title.setContentsMargins(4, 4, 4, 0)
 
-        page = QWidget()
-        column = QVBoxLayout(page)
-        column.setContentsMargins(0, 0, 0, 0)
-        column.setSpacing(0)
-        column.addWidget(self._title)
-        column.addWidget(self._graphics, 1)
-        column.addWidget(self._readout)
-        self._stack = QStackedLayout(self)
-        self._stack.addWidget(page)
-        self._stack.addWidget(self._message)
+        self._view_frame = ViewFrame(self, self._graphics, title=self._title)
+        self._readout = self._view_frame.readout
 
+        # A panel moved to another grid (or shown after being hidden) lays its frame out
+        # afresh once its new size is known: margins from the old size would not fit.
+        self._refit_timer = QTimer(self)
+        self._refit_timer.setSingleShot(True)
+        self._refit_timer.setInterval(0)
+        self._refit_timer.timeout.connect(self._refit_frame)
         self._contour_timer = QTimer(self)
         self._contour_timer.setSingleShot(True)
         self._contour_timer.timeout.connect(self._draw_contours)
@@ -249,7 +233,7 @@ class SliceView(QWidget):
         self._graphics.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._graphics.scene().sigMouseClicked.connect(self._on_mouse_clicked)
         self._graphics.viewport().installEventFilter(self)
-        self.setMinimumSize(240, 240)
+        self.setMinimumSize(200, 170)  # two rows of panels fit 720 px
         self._show_message()
 
     @staticmethod
@@ -343,6 +327,25 @@ class SliceView(QWidget):
         self._set_margins(*new)
         return True
 
+    def resizeEvent(self, event: QResizeEvent) -> None:  # Qt override
+        super().resizeEvent(event)
+        self._refit_timer.start()
+
+    def showEvent(self, event: QShowEvent) -> None:  # Qt override
+        super().showEvent(event)
+        self._refit_timer.start()
+
+    def _refit_frame(self) -> None:
+        """Fit the frame from zero margins to the panel's current size."""
+        if self._fitting or not self.isVisible():
+            return
+        self._set_margins(0.0, 0.0)
+        # The central item kept the width the old margins forced on it: give it the
+        # view's size again (pyqtgraph sets it only on the view's own resize).
+        self._graphics.ci.setGeometry(QRectF(self._graphics.rect()))
+        self._graphics.ci.layout.activate()
+        self._fit_frame()
+
     def _set_margins(self, mx: float, my: float) -> None:
         self._margins = (mx, my)
         self._graphics.ci.setContentsMargins(_EDGE + mx, _EDGE + my, _EDGE + mx, _EDGE + my)
@@ -385,7 +388,7 @@ class SliceView(QWidget):
             self._show_message()
             return
         self._scene = scene
-        self._stack.setCurrentIndex(0)
+        self._view_frame.show_plot()
         coordinates = np.asarray(scene.coordinates, dtype=float)
         n = coordinates.size
         step = (coordinates[-1] - coordinates[0]) / (n - 1) if n > 1 else 1.0
@@ -478,8 +481,7 @@ class SliceView(QWidget):
         self._image.clear()
         self._frame.setRect(QRectF())
         self._hide_cursor()
-        self._message.setText(self._empty_message)
-        self._stack.setCurrentIndex(1)
+        self._view_frame.show_message(self._empty_message)
 
     def set_colour_range(self, low: float, high: float) -> None:
         """Map the colours over [low, high] until the next scene.
@@ -928,10 +930,8 @@ class SliceView(QWidget):
 
     def readout_text(self) -> str:
         """The read-out line below the image, as plain text."""
-        document = QTextDocument()
-        document.setHtml(self._readout.text())
-        return document.toPlainText()
+        return self._view_frame.readout_text()
 
     def empty_message(self) -> str | None:
         """The message shown instead of an image, or ``None`` when a scene is drawn."""
-        return self._message.text() if self._stack.currentIndex() == 1 else None
+        return self._view_frame.shown_message()
