@@ -17,10 +17,12 @@ def window(make_window):
 
 def test_length_boxes_follow_the_unit(window):
     controls = window.controls
-    boxes = [controls.offset, controls.extent, *controls.reference]
+    boxes = [controls.offset, controls.extent]
     assert all(box.suffix() == " bohr" for box in boxes)
+    assert controls.reference_label.text() == "r₁ / bohr"  # three boxes in a row: unit in the label
     window.apply(window.state.with_changes(length_unit="angstrom"))
     assert all(box.suffix() == " Å" for box in boxes)
+    assert controls.reference_label.text() == "r₁ / Å"
     assert controls.offset.value() == pytest.approx(0.5 * ANGSTROM_PER_BOHR, abs=1e-3)
     assert controls.extent.value() == pytest.approx(6.0 * ANGSTROM_PER_BOHR, abs=1e-2)
     assert controls.reference[2].value() == pytest.approx(1.1 * ANGSTROM_PER_BOHR, abs=1e-3)

@@ -226,13 +226,13 @@ class ViewControls(QWidget):
         hint = QLabel("Click a panel to place the reference electron on the plane.")
         hint.setWordWrap(True)
         hint.setStyleSheet("color: #555;")
-        self.reference = [_spin(*_REFERENCE_RANGE, 0.1, 3, " bohr") for _ in range(3)]
+        self.reference = [_spin(*_REFERENCE_RANGE, 0.1, 3, "") for _ in range(3)]
         reference_row = QWidget()
         reference_layout = QHBoxLayout(reference_row)
         reference_layout.setContentsMargins(0, 0, 0, 0)
         for spin, axis in zip(self.reference, "xyz", strict=True):
             spin.setToolTip(f"{axis} of the reference electron r₁")
-            spin.setMinimumWidth(64)  # three in a row: the side panel stays narrow
+            spin.setMinimumWidth(62)  # three in a row (the unit is in the row's label)
             reference_layout.addWidget(spin)
         self.spin_box = QComboBox()
         self.spin_box.addItem("↑ (spin up, α)", "up")
@@ -248,7 +248,9 @@ class ViewControls(QWidget):
         self.determinant_message.setWordWrap(True)
         self.determinant_message.setStyleSheet("color: #b00020;")
         form.addRow(hint)
-        form.addRow("r₁", reference_row)
+        self.reference_label = QLabel("r₁ / bohr")
+        self.reference_label.setBuddy(self.reference[0])
+        form.addRow(self.reference_label, reference_row)
         form.addRow("Spin", self.spin_box)
         form.addRow("Determinant", self.determinant)
         form.addRow(self.determinant_message)
@@ -348,8 +350,10 @@ class ViewControls(QWidget):
             was = spin.signalsBlocked()
             spin.blockSignals(True)
             spin.setRange(low * scale, high * scale)
-            spin.setSuffix(suffix)
+            # Three r₁ boxes share a row: their unit goes in the row's label instead.
+            spin.setSuffix("" if spin in self.reference else suffix)
             spin.blockSignals(was)
+        self.reference_label.setText(f"r₁ /{suffix}")
 
     def _bohr(self, spin: QDoubleSpinBox, current: float) -> float:
         """The box's value in bohr; the stored value itself while the user left it alone.

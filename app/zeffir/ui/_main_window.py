@@ -364,7 +364,7 @@ class MainWindow(QMainWindow):
         notes_scroll.setFrameShape(QFrame.Shape.NoFrame)
         notes_scroll.setHorizontalScrollBarPolicy(Qt.ScrollBarPolicy.ScrollBarAlwaysOff)
         line = self.energy_line.fontMetrics().lineSpacing()
-        notes_scroll.setFixedHeight(5 * line + 8)
+        notes_scroll.setFixedHeight(4 * line + 8)
         table_layout.addWidget(notes_scroll)
         self.banner = QFrame()
         self.banner.setObjectName("staleBanner")

@@ -29,7 +29,7 @@ from zeffir.ui._plot_style import (
     style_plot,
     subshell_style,
 )
-from zeffir.ui._view_frame import ViewFrame
+from zeffir.ui._view_frame import ViewFrame, fitted_line
 
 __all__ = ["RadialView"]
 
@@ -165,7 +165,8 @@ class RadialView(QWidget):
         self._scene = scene
         self._frame.show_plot()
         self._plot.setLogMode(x=scene.log_r, y=False)
-        self._plot.setTitle(html.escape(scene.title), color=AXIS_COLOUR, size="11pt")
+        self._shown_title: tuple[str, float] | None = None
+        self._fit_title()
         self._plot.setLabel("bottom", html.escape(scene.x_label), **label_style())
         self._y_label_short: bool | None = None  # forces the label to be set
         self._fit_y_label()
@@ -371,6 +372,20 @@ class RadialView(QWidget):
         offset = (-10 if fx == 1.0 else 10 if fx == 0.0 else 0, 8 - 16 * fy)
         self._legend.anchor(itemPos=(fx, fy), parentPos=(fx, fy), offset=offset)
 
+    def _fit_title(self) -> None:
+        """The title at a size that fits the panel (shortened with … as a last resort)."""
+        if self._scene is None:
+            return
+        room = max(float(self._plot_widget.width()) - 16.0, 40.0)
+        shown = fitted_line(self._scene.title, room, (11.0, 10.0, 9.0))
+        if shown != getattr(self, "_shown_title", None):
+            self._shown_title = shown
+            self._plot.setTitle(html.escape(shown[0]), color=AXIS_COLOUR, size=f"{shown[1]:g}pt")
+
+    def title_text(self) -> str:
+        """The title as shown (shortened with … when the panel is narrow)."""
+        return self._shown_title[0] if getattr(self, "_shown_title", None) else ""
+
     def _fit_y_label(self) -> None:
         """The value axis label; in a short panel without its weighting phrase (kept in the tip)."""
         if self._scene is None:
@@ -387,6 +402,7 @@ class RadialView(QWidget):
     def _on_resized(self) -> None:
         if self._scene is not None:
             self._fit_y_label()
+            self._fit_title()
         if self._curves:
             self._fit_legend_size()
             self._place_legend()
@@ -401,7 +417,7 @@ class RadialView(QWidget):
             axis = self._plot.getAxis(side)
             axis.setToolTip(tip)
             axis.label.setToolTip(tip)
-        self._plot.titleLabel.setToolTip(f"{scene.spec} under {model_title(scene.model)}")
+        self._plot.titleLabel.setToolTip(f"{scene.title}\n{scene.spec} under {model_title(scene.model)}")
         self._readout.setToolTip(y_tip)
 
     # -- range and linking ---------------------------------------------------------------

@@ -10,7 +10,7 @@ from typing import Any, Final
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QEvent, QObject, QPoint, QPointF, QRectF, Qt, QTimer, Signal, Slot
-from PySide6.QtGui import QMouseEvent, QResizeEvent, QShowEvent
+from PySide6.QtGui import QMouseEvent, QResizeEvent, QShowEvent, QTextDocument
 from PySide6.QtWidgets import (
     QApplication,
     QGraphicsRectItem,
@@ -32,7 +32,7 @@ from zeffir.ui._plot_style import (
     style_plot,
     tick_font,
 )
-from zeffir.ui._view_frame import ViewFrame
+from zeffir.ui._view_frame import ViewFrame, fitted_line
 
 __all__ = ["PROFILE_HINT", "PointOf", "SliceView"]
 
@@ -330,6 +330,7 @@ class SliceView(QWidget):
     def resizeEvent(self, event: QResizeEvent) -> None:  # Qt override
         super().resizeEvent(event)
         self._refit_timer.start()
+        self._fit_title()
 
     def showEvent(self, event: QShowEvent) -> None:  # Qt override
         super().showEvent(event)
@@ -431,15 +432,31 @@ class SliceView(QWidget):
         if self._cursor_shown:
             self._draw_cursor(self._v_line.value(), self._h_line.value())
 
-    def _set_labels(self, scene: SliceScene) -> None:
-        title = (
-            f'<span style="font-size:11pt; color:{AXIS_COLOUR}">{html.escape(scene.title)}</span><br>'
-            f'<span style="font-size:9pt; color:{MUTED_TEXT}">{html.escape(scene.plane_text)}</span>'
+    def _fit_title(self) -> None:
+        """Title and plane lines sized (or shortened, the full text in the tip) to the panel."""
+        scene = self._scene
+        if scene is None:
+            return
+        room = max(float(self._title.width()) - 12.0, 40.0)
+        title, title_size = fitted_line(scene.title, room, (11.0, 10.0, 9.0))
+        plane, plane_size = fitted_line(scene.plane_text, room, (9.0, 8.0))
+        text = (
+            f'<span style="font-size:{title_size:g}pt; color:{AXIS_COLOUR}">{html.escape(title)}</span><br>'
+            f'<span style="font-size:{plane_size:g}pt; color:{MUTED_TEXT}">{html.escape(plane)}</span>'
         )
-        if title != self._title.text():
-            self._title.setText(title)
-            self._title.setToolTip(f"{scene.spec} under {model_title(scene.model)}; "
+        if text != self._title.text():
+            self._title.setText(text)
+            self._title.setToolTip(f"{scene.title}\n{scene.spec} under {model_title(scene.model)}; "
                                    f"{scene.plane_text}")
+
+    def title_text(self) -> str:
+        """The title as shown (plain text; shortened with … when the panel is narrow)."""
+        document = QTextDocument()
+        document.setHtml(self._title.text())
+        return document.toPlainText()
+
+    def _set_labels(self, scene: SliceScene) -> None:
+        self._fit_title()
         labels = (*scene.axis_labels, scene.value_label, scene.quantity, scene.colour_map)
         if labels == self._labels:  # text layout is the slow part of a redraw; skip when unchanged
             return

@@ -80,3 +80,20 @@ class ViewFrame:
         document = QTextDocument()
         document.setHtml(self.readout.text())
         return document.toPlainText()
+
+
+def fitted_line(text: str, width: float, sizes: tuple[float, ...]) -> tuple[str, float]:
+    """``text`` at the largest point size in ``sizes`` that fits ``width`` pixels.
+
+    When none fits, the text is shortened with an ellipsis at the smallest size (the
+    whole text belongs in the widget's tooltip). Returns the text and the size.
+    """
+    from PySide6.QtGui import QFont, QFontMetricsF
+
+    font = QFont()
+    for size in sizes:
+        font.setPointSizeF(size)
+        if QFontMetricsF(font).horizontalAdvance(text) <= width:
+            return text, size
+    metrics = QFontMetricsF(font)
+    return metrics.elidedText(text, Qt.TextElideMode.ElideRight, max(width, 20.0)), sizes[-1]
