@@ -31,6 +31,22 @@ __all__ = ["figure_state", "main", "parse_orbital", "table_json", "terms_json"]
 EXIT_BAD_INPUT = 2
 
 
+#: The window's and session files' unit names, and the older command-line ones.
+_UNIT_NAMES = {"bohr": "atomic", "atomic": "atomic", "angstrom": "angstrom-ev", "angstrom-ev": "angstrom-ev"}
+
+
+#: What ``--units`` accepts: the session's names first.
+UNIT_CHOICES = ("bohr", "angstrom", "atomic", "angstrom-ev")
+
+
+class _UnitsAction(argparse.Action):
+    """Store ``--units`` as the unit system it names (bohr → atomic, angstrom → angstrom-ev)."""
+
+    def __call__(self, parser: argparse.ArgumentParser, namespace: argparse.Namespace,
+                 values: object, option_string: str | None = None) -> None:
+        setattr(namespace, self.dest, _UNIT_NAMES[str(values)])
+
+
 def _parser() -> argparse.ArgumentParser:
     from zeffir.core import DEFAULT_MODEL, model_names
 
@@ -58,8 +74,10 @@ def _parser() -> argparse.ArgumentParser:
     )
     table.add_argument("--model", default=DEFAULT_MODEL, choices=model_names(),
                        help=f"model (default {DEFAULT_MODEL})")
-    table.add_argument("--units", default="atomic", choices=("atomic", "angstrom-ev"),
-                       help="units of the text table (JSON is always atomic)")
+    table.add_argument("--units", default="atomic", choices=UNIT_CHOICES, action=_UnitsAction,
+                       help="units of the text table: bohr and hartree, or angstrom and eV — the "
+                       "names the window and session files use (atomic and angstrom-ev are "
+                       "accepted too); JSON is always atomic")
     table.add_argument("--json", action="store_true",
                        help="print one JSON object in atomic units instead of a table")
     terms = commands.add_parser(
@@ -160,8 +178,10 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str])
                         help="slice: grid points along each side (default 256)")
     figure.add_argument("--contours", type=int, metavar="K",
                         help="slice: number of contour lines, 0 for none (default 8)")
-    figure.add_argument("--units", default="atomic", choices=("atomic", "angstrom-ev"),
-                        help="lengths in bohr (atomic) or Å; also the unit of --r-max, --offset, --extent")
+    figure.add_argument("--units", default="atomic", choices=UNIT_CHOICES, action=_UnitsAction,
+                        help="lengths in bohr (with hartree) or angstrom (with eV), the names the "
+                        "window and session files use (atomic and angstrom-ev are accepted too); "
+                        "also the unit of --r-max, --offset, --extent, --ref and --limits")
     figure.add_argument("--width", choices=tuple(COLUMN_WIDTHS),
                         help="journal column: single (3.35 in) or double (7.0 in); "
                         "default double for comparisons, single otherwise")

@@ -72,3 +72,14 @@ def test_a_line_profile_follows_a_switch_of_units(make_window):
     assert u1 - u0 == pytest.approx(4.0 * ANGSTROM_PER_BOHR)  # the same stretch of the atom
     distance, _values = window.profile_view.curve_data()
     assert distance[-1] == pytest.approx(4.0 * ANGSTROM_PER_BOHR, rel=1e-6)
+
+
+def test_the_unit_chooser_names_what_the_session_and_command_line_name(window):
+    from zeffir.state import LENGTH_UNITS
+
+    box = window.controls.units
+    items = [(box.itemData(i), box.itemText(i)) for i in range(box.count())]
+    assert [key for key, _ in items] == list(LENGTH_UNITS)
+    assert all(text.startswith(key) for key, text in items)  # "bohr and hartree…", "angstrom and eV"
+    assert all(action.text().replace("&", "").startswith(key)
+               for key, action in window.unit_actions.items())

@@ -9,6 +9,7 @@ difference panel (second − first) can be drawn.
 from __future__ import annotations
 
 from dataclasses import dataclass, replace
+from typing import Any
 
 import numpy as np
 
@@ -50,8 +51,42 @@ def series_names(sources: tuple[Source, ...] | list[Source]) -> tuple[str, ...]:
                  for s in sources)
 
 
+class _SeriesPanels:
+    """What both comparisons share: the first two series by name, and the panels in order."""
+
+    series: tuple[Any, ...]
+    difference: Any
+
+    @property
+    def left(self) -> Any:
+        """The first series (the main atom)."""
+        return self.series[0]
+
+    @property
+    def right(self) -> Any:
+        """The second series."""
+        return self.series[1]
+
+    def _shown(self) -> tuple[tuple[str, object], ...]:
+        return tuple((f"series {i + 1}", scene) for i, scene in enumerate(self.series))
+
+    @property
+    def panels(self) -> tuple[Any, ...]:
+        """What is drawn, in order: the series (or their overlay), then the difference."""
+        return tuple(scene for _, scene in self._named())
+
+    @property
+    def panel_names(self) -> tuple[str, ...]:
+        """A name per panel: ``series 1``… (or ``overlay``), then ``difference``."""
+        return tuple(name for name, _ in self._named())
+
+    def _named(self) -> tuple[tuple[str, object], ...]:
+        extra = (("difference", self.difference),) if self.difference is not None else ()
+        return (*self._shown(), *extra)
+
+
 @dataclass(frozen=True)
-class RadialComparison:
+class RadialComparison(_SeriesPanels):
     """Radial scenes of several series on one r grid.
 
     Attributes
@@ -68,57 +103,16 @@ class RadialComparison:
     difference: RadialScene | None = None
     overlay: RadialScene | None = None
 
-    @property
-    def left(self) -> RadialScene:
-        """The first series (the main atom)."""
-        return self.series[0]
-
-    @property
-    def right(self) -> RadialScene:
-        """The second series."""
-        return self.series[1]
-
-    @property
-    def panels(self) -> tuple[RadialScene, ...]:
-        """What is drawn, in order: the overlay or each series, then the difference."""
-        shown = (self.overlay,) if self.overlay is not None else self.series
-        return (*shown, *((self.difference,) if self.difference is not None else ()))
-
-    @property
-    def panel_names(self) -> tuple[str, ...]:
-        """A name per panel: ``overlay`` or ``series 1``…, then ``difference``."""
-        shown = (("overlay",) if self.overlay is not None
-                 else tuple(f"series {i + 1}" for i in range(len(self.series))))
-        return (*shown, *(("difference",) if self.difference is not None else ()))
+    def _shown(self) -> tuple[tuple[str, object], ...]:
+        return (("overlay", self.overlay),) if self.overlay is not None else super()._shown()
 
 
 @dataclass(frozen=True)
-class SliceComparison:
+class SliceComparison(_SeriesPanels):
     """Slices of several series on one colour scale, and second − first for two series."""
 
     series: tuple[SliceScene, ...]
     difference: SliceScene | None = None
-
-    @property
-    def left(self) -> SliceScene:
-        """The first series (the main atom)."""
-        return self.series[0]
-
-    @property
-    def right(self) -> SliceScene:
-        """The second series."""
-        return self.series[1]
-
-    @property
-    def panels(self) -> tuple[SliceScene, ...]:
-        """Each series, then the difference (when there is one)."""
-        return (*self.series, *((self.difference,) if self.difference is not None else ()))
-
-    @property
-    def panel_names(self) -> tuple[str, ...]:
-        """``series 1``, ``series 2``…, then ``difference``."""
-        names = tuple(f"series {i + 1}" for i in range(len(self.series)))
-        return (*names, *(("difference",) if self.difference is not None else ()))
 
 
 def compare_radial(state: ViewState) -> RadialComparison:

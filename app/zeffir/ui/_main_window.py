@@ -486,7 +486,7 @@ class MainWindow(QMainWindow):
         units = view_menu.addMenu("Units")
         group = QActionGroup(self)
         self.unit_actions = {}
-        for key, text in (("bohr", "Atomic (bohr, hartree)"), ("angstrom", "Å and eV")):
+        for key, text in (("bohr", "&bohr and hartree (atomic units)"), ("angstrom", "&angstrom and eV")):
             action = units.addAction(text)
             action.setCheckable(True)
             group.addAction(action)
