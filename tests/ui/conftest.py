@@ -26,3 +26,19 @@ def make_window(qtbot, tmp_path):
         return window
 
     return make
+
+
+@pytest.fixture(autouse=True)
+def _destroy_closed_widgets_after_each_test(qapp):
+    """Destroy the widgets pytest-qt closed, while the application still runs.
+
+    pytest-qt closes each test's widgets and schedules their deletion, but processing
+    events does not carry out a scheduled deletion. Left to the interpreter's exit,
+    thousands of plot widgets and their signal links are then torn down by the
+    garbage collector one weak reference at a time, which takes minutes. (This
+    teardown runs after pytest-qt has closed the widgets.)
+    """
+    yield
+    from PySide6.QtCore import QCoreApplication, QEvent
+
+    QCoreApplication.sendPostedEvents(None, QEvent.Type.DeferredDelete)

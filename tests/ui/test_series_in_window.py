@@ -83,6 +83,8 @@ def test_series_are_added_and_removed_from_the_side_panel(make_window, qtbot):
     assert len(window.state.compare.more) == 1 and window.state.compare.more[0].spec == ""
     assert len(window.radial_trio.views) == 3 and not window.controls.show_difference.isEnabled()
     row_fields = series_list._rows[0][1]
+    assert row_fields.spec_edit.accessibleName() == "Series 3"  # its visible label
+    assert row_fields.model_box.accessibleName() == "Model"
     row_fields.spec_edit.setText("Qq")
     row_fields.spec_edit.textEdited.emit("Qq")
     row_fields.spec_edit.returnPressed.emit()

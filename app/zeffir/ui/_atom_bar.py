@@ -64,6 +64,10 @@ class SourceFields(QWidget):
         label.setBuddy(self.spec_edit)
         model_label = QLabel("Model")
         model_label.setBuddy(self.model_box)
+        # Named here, not only by the window's pass over its labels: rows made later
+        # (further series) are named too.
+        self.spec_edit.setAccessibleName(caption)
+        self.model_box.setAccessibleName("Model")
         if stacked:
             # For narrow places (the side panel): the model chooser gets its own row, so
             # long model names stay readable.

@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from dataclasses import replace
 from pathlib import Path
 from typing import Any
@@ -168,24 +169,47 @@ class _PanelGrid(QWidget):
     share both axes; a radial difference panel shares r only (its values are small).
     """
 
-    def __init__(self, factory: type[RadialView] | type[SliceView]) -> None:
+    def __init__(self, factory: type[RadialView] | type[SliceView],
+                 setup: Callable[[Any], None] | None = None) -> None:
         super().__init__()
-        self.series_views = [factory() for _ in range(MAX_SERIES)]
+        self._factory = factory
+        self._setup = setup
+        # Two series panels and the difference panel from the start; further series
+        # panels are made when a comparison first asks for them.
+        self.series_views: list[Any] = []
         self.difference_view = factory()
-        self.all_views = [*self.series_views, self.difference_view]
         self._layout = QGridLayout(self)
         self._layout.setContentsMargins(0, 0, 0, 0)
         self._layout.setSpacing(2)
-        first = self.series_views[0]
-        for view in self.series_views[1:]:
-            view.link_axes(first)  # type: ignore[arg-type]
-        if factory is SliceView:
-            self.difference_view.link_axes(first)  # type: ignore[arg-type]
-        else:  # radial differences are small: share r only, not the value axis
-            self.difference_view.link_axes(first, y=False)  # type: ignore[call-arg]
         self._shown: list[RadialView | SliceView] = []
         self._columns = 0
+        self._ensure_series(2)
+        first = self.series_views[0]
+        if factory is SliceView:
+            self.difference_view.link_axes(first)
+        else:  # radial differences are small: share r only, not the value axis
+            self.difference_view.link_axes(first, y=False)
         self.set_panels(1, False)
+
+    @property
+    def all_views(self) -> list[Any]:
+        """Every panel made so far (shown or not)."""
+        return [*self.series_views, self.difference_view]
+
+    def set_setup(self, setup: Callable[[Any], None]) -> None:
+        """Call ``setup(view)`` for every panel made so far and for each one made later."""
+        self._setup = setup
+        for view in self.all_views:
+            setup(view)
+
+    def _ensure_series(self, count: int) -> None:
+        while len(self.series_views) < min(count, MAX_SERIES):
+            view = self._factory()
+            if self.series_views:
+                view.link_axes(self.series_views[0])  # type: ignore[arg-type]
+            self.series_views.append(view)
+            if self._setup is not None:
+                self._setup(view)
 
     @property
     def views(self) -> list[RadialView | SliceView]:
@@ -194,6 +218,7 @@ class _PanelGrid(QWidget):
 
     def set_panels(self, series: int, difference: bool) -> None:
         """Show ``series`` series panels and, if asked, the difference panel after them."""
+        self._ensure_series(series)
         shown = [*self.series_views[:series], *([self.difference_view] if difference else [])]
         if shown == self._shown:
             return
@@ -307,15 +332,11 @@ class MainWindow(QMainWindow):
         scroll.setMaximumWidth(panel_width + 60)
         self.radial_trio = _PanelGrid(RadialView)
         self.slice_trio = _PanelGrid(SliceView)
-        for view in self.slice_trio.all_views:
-            view.use_external_contours(True)
         self.tabs = QTabWidget()
         self.tabs.addTab(self.radial_trio, "Radial")
         self.tabs.addTab(self.slice_trio, "Slice")
         self.pair_trio = _PanelGrid(SliceView)
         self.two_trio = _PanelGrid(SliceView)
-        for view in (*self.pair_trio.all_views, *self.two_trio.all_views):
-            view.use_external_contours(True)
         self.tabs.addTab(self.pair_trio, "Pair")
         self.tabs.addTab(self.two_trio, "Two electrons")
         self.terms_view = TermsView()
@@ -423,10 +444,6 @@ class MainWindow(QMainWindow):
         self.controls.pair_edited.connect(lambda p: self.model.update(pair=p))
         self.controls.two_electron_edited.connect(lambda t: self.model.update(two_electron=t))
         self.tabs.currentChanged.connect(lambda i: self.model.update(view=_VIEWS[i]))
-        for view in self.pair_trio.all_views:
-            view.clicked.connect(self._place_reference)
-        for trio in (self.radial_trio, self.slice_trio, self.pair_trio, self.two_trio):
-            self._link_cursors(trio)
         self.profile_view = ProfileView()
         self.profile_dock = QDockWidget("Line profile", self)
         self.profile_dock.setObjectName("lineProfileDock")
@@ -435,11 +452,8 @@ class MainWindow(QMainWindow):
         self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, self.profile_dock)
         self.profile_dock.hide()  # appears with the first profile
         self._profile_segment: tuple[str, int, tuple[float, float], tuple[float, float]] | None = None
-        for key in ("slice", "pair", "two-electron"):
-            for view in self._trios[key].all_views:
-                view.profile_requested.connect(
-                    lambda u0, v0, u1, v1, k=key, w=view: self._request_profile(
-                        k, w, (u0, v0), (u1, v1)))
+        for key, grid in self._trios.items():
+            grid.set_setup(lambda view, k=key, g=grid: self._setup_panel(k, g, view))
         self.profile_view.cleared.connect(self._clear_profile)
         self.profile_view.saved.connect(
             lambda path: self.statusBar().showMessage(f"Saved {path}", 8000))
@@ -454,12 +468,20 @@ class MainWindow(QMainWindow):
         reference = (round(x / scale, 4), round(y / scale, 4), round(z / scale, 4))
         self.model.update(pair=replace(state.pair, reference=reference))
 
-    def _link_cursors(self, trio: _PanelGrid) -> None:
-        signal = "cursor_moved" if isinstance(trio.all_views[0], RadialView) else "hovered"
-        for source in trio.all_views:
-            for target in trio.all_views:
-                if target is not source:
-                    getattr(source, signal).connect(target.show_cursor)
+    def _setup_panel(self, key: str, grid: _PanelGrid, view: Any) -> None:
+        """Wire a new panel of ``grid``: linked cursors, contours, profiles, the reference click."""
+        signal = "cursor_moved" if isinstance(view, RadialView) else "hovered"
+        for other in grid.all_views:
+            if other is not view and getattr(other, "_wired", False):
+                getattr(view, signal).connect(other.show_cursor)
+                getattr(other, signal).connect(view.show_cursor)
+        view._wired = True
+        if isinstance(view, SliceView):
+            view.use_external_contours(True)
+            view.profile_requested.connect(
+                lambda u0, v0, u1, v1, k=key, w=view: self._request_profile(k, w, (u0, v0), (u1, v1)))
+        if key == "pair":
+            view.clicked.connect(self._place_reference)
 
     def _build_menus(self) -> None:
         file_menu = self.menuBar().addMenu("&File")
