@@ -66,13 +66,13 @@ def test_versus_a_model_compares_models_on_the_same_spec(tmp_path, capsys):
     out = tmp_path / "c.csv"
     assert main(["figure", "Na", "--model", "slater", "--versus", "clementi", "--out", str(out)]) == 0
     text = out.read_text(encoding="utf-8")
-    assert "# left: spec Na; model slater" in text and "# right: spec Na; model clementi" in text
+    assert "# series_1: spec Na; model slater;" in text and "# series_2: spec Na; model clementi;" in text
 
 
 def test_versus_a_spec_compares_specs_under_the_same_model(tmp_path, capsys):
     out = tmp_path / "c.csv"
     assert main(["figure", "Na", "--model", "clementi", "--versus", "Na+", "--out", str(out)]) == 0
-    assert "# right: spec Na+; model clementi" in out.read_text(encoding="utf-8")
+    assert "# series_2: spec Na+; model clementi;" in out.read_text(encoding="utf-8")
 
 
 @pytest.mark.parametrize(

@@ -29,6 +29,7 @@ def _read_csv(path):
     header = [line for line in text.splitlines() if line.startswith("#")]
     rows = list(csv.reader(io.StringIO("\n".join(l for l in text.splitlines() if not l.startswith("#")))))
     names, body = rows[0], rows[1:]
+    assert text.splitlines()[0] == ",".join(names)  # the names come first, then the notes
     return header, names, np.array([[float(v) for v in row] for row in body])
 
 
@@ -37,9 +38,10 @@ def test_radial_csv_has_a_self_describing_header_and_one_column_per_curve(tmp_pa
     header, names, table = _read_csv(write_data(scene, tmp_path / "r.csv"))
     text = "\n".join(header)
     for needed in ("spec: Na", "model: slater", "quantity: D", "r in bohr", "bohr⁻¹",
-                   f"zeffir {__version__}", CODATA_EDITION, "model estimate"):
+                   f"zeffir_version: {__version__}", "format_version: 2", CODATA_EDITION,
+                   "model estimate", "3s, 1 electron"):
         assert needed in text
-    assert names == ["r", *(c.label for c in scene.curves)]
+    assert names == ["r_bohr", *(f"D_{c.subshell or 'total'}_per_bohr" for c in scene.curves)]
     assert table.shape == (scene.curves[0].x.size, 1 + len(scene.curves))
 
 
@@ -54,23 +56,21 @@ def test_radial_csv_reads_back_to_exactly_the_plotted_values(tmp_path, state):
 def test_radial_comparison_csv_prefixes_columns_and_difference_is_right_minus_left(tmp_path, state):
     comparison = compare_radial(state)
     header, names, table = _read_csv(write_data(comparison, tmp_path / "c.csv"))
-    assert "# left: spec Na; model slater" in header
-    assert "# right: spec Mg; model slater" in header
+    assert any(line.startswith("# series_1: spec Na; model slater") for line in header)
+    assert any(line.startswith("# series_2: spec Mg; model slater") for line in header)
     column = {name: table[:, i] for i, name in enumerate(names)}
-    assert {n.split(":")[0] for n in names[1:]} == {"left", "right", "difference"}
+    assert {n.split("_D_")[0] for n in names[1:]} == {"series_1", "series_2", "difference"}
     for curve in comparison.difference.curves:
-        # Labels carry occupancies, which differ between Na and Mg: match by subshell.
-        left = next(c for c in comparison.left.curves if c.subshell == curve.subshell)
-        right = next(c for c in comparison.right.curves if c.subshell == curve.subshell)
-        delta = column[f"right:{right.label}"] - column[f"left:{left.label}"]
-        assert np.array_equal(column[f"difference:{curve.label}"], delta)
+        key = f"D_{curve.subshell or 'total'}_per_bohr"
+        delta = column[f"series_2_{key}"] - column[f"series_1_{key}"]
+        assert np.array_equal(column[f"difference_{key}"], delta)
 
 
 def test_slice_npz_holds_exactly_the_scene_arrays_and_metadata(tmp_path, state):
     scene = slice_scene(state.left, state.orbital, state.slice)
     with np.load(write_data(scene, tmp_path / "s.npz"), allow_pickle=False) as data:
         assert np.array_equal(data["values"], scene.values)
-        assert np.array_equal(data["image"], scene.image)
+        assert np.array_equal(data["image"], scene.image)  # a log scale: stored apart
         assert np.array_equal(data["u"], scene.coordinates)
         metadata = json.loads(str(data["metadata"]))
     assert metadata["spec"] == "Na" and metadata["model"] == "slater"
@@ -78,19 +78,20 @@ def test_slice_npz_holds_exactly_the_scene_arrays_and_metadata(tmp_path, state):
     assert metadata["plane_text"] == scene.plane_text
     assert metadata["units"] == {"u": "bohr", "values": "bohr⁻³", "image": "log10 of bohr⁻³"}
     assert metadata["colour_range"] == list(scene.colour_range)
-    assert metadata["zeffir_version"] == __version__
+    assert metadata["zeffir_version"] == __version__ and metadata["format_version"] == 2
 
 
 def test_slice_comparison_npz_difference_is_right_minus_left(tmp_path, state):
     comparison = compare_slices(state)
     with np.load(write_data(comparison, tmp_path / "c.npz"), allow_pickle=False) as data:
-        assert np.array_equal(data["left_values"], comparison.left.values)
-        assert np.array_equal(data["right_values"], comparison.right.values)
-        assert np.array_equal(data["difference"], data["right_values"] - data["left_values"])
-        assert np.array_equal(data["values"], comparison.left.values)
+        assert np.array_equal(data["series_1_values"], comparison.left.values)
+        assert np.array_equal(data["series_2_values"], comparison.right.values)
+        assert np.array_equal(data["difference_values"],
+                              data["series_2_values"] - data["series_1_values"])
         metadata = json.loads(str(data["metadata"]))
-    assert metadata["right"]["spec"] == "Mg"
+    assert metadata["series_2"]["spec"] == "Mg" and metadata["values_panel"] == "series_1"
     assert metadata["difference"]["signed"] is True
+    assert "series_2 − series_1" in metadata["difference"]["quantity_name"]
 
 
 def test_csv_for_a_slice_and_npz_for_curves_are_refused(tmp_path, state):

@@ -22,7 +22,8 @@ def test_view_target_follows_the_view_and_the_comparison_switch():
 
 def test_export_dispatches_on_the_suffix_and_returns_the_path(tmp_path):
     assert export_view(ViewState(), tmp_path / "r.csv") == tmp_path / "r.csv"
-    assert (tmp_path / "r.csv").read_text(encoding="utf-8").startswith("# Zeffir radial data")
+    lines = (tmp_path / "r.csv").read_text(encoding="utf-8").splitlines()
+    assert lines[0].startswith("r_bohr,") and lines[1].startswith("# Zeffir radial data")
     written = export_view(SLICE, tmp_path / "s.npz")
     expected = slice_scene(SLICE.left, SLICE.orbital, SLICE.slice)
     with np.load(written, allow_pickle=False) as data:

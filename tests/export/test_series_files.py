@@ -28,15 +28,16 @@ def test_radial_csv_has_a_column_block_per_series(tmp_path):
     path = export_view(_state(), tmp_path / "four.csv")
     text = path.read_text(encoding="utf-8")
     header = [line for line in text.splitlines() if line.startswith("# series")]
-    assert header == ["# series 1: spec Na; model slater", "# series 2: spec Na; model clementi",
-                      "# series 3: spec Na; model hydrogenic", "# series 4: spec Mg+; model slater"]
+    assert [line.partition("; curves")[0] for line in header] == [
+        "# series_1: spec Na; model slater", "# series_2: spec Na; model clementi",
+        "# series_3: spec Na; model hydrogenic", "# series_4: spec Mg+; model slater"]
     rows = list(csv.reader(io.StringIO("\n".join(l for l in text.splitlines() if not l.startswith("#")))))
     names = rows[0]
     for k in range(1, 5):
-        assert f"series {k}:total" in names
-    assert not any(name.startswith("difference:") for name in names)
+        assert f"series_{k}_D_total_per_bohr" in names
+    assert not any(name.startswith("difference") for name in names)
     comparison = view_scene(_state())
-    column = names.index("series 4:total")
+    column = names.index("series_4_D_total_per_bohr")
     total = next(c for c in comparison.series[3].curves if c.subshell is None)
     np.testing.assert_array_equal([float(r[column]) for r in rows[1:]], total.y)
 

@@ -78,7 +78,7 @@ def test_binary_file_is_not_a_session(tmp_path):
     [
         ({"state": {}}, "no 'kind' field"),
         ({"kind": "zeffir-demo", "version": 1}, "its kind is 'zeffir-demo'"),
-        ([1, 2, 3], "expected a JSON object, found list"),
+        ([1, 2, 3], "expected a JSON object, found an array"),
     ],
 )
 def test_foreign_json_is_not_a_session(tmp_path, document, found):

@@ -195,15 +195,17 @@ def test_csv_round_trip_with_numpy(tmp_path, profile):
     path = write_profile_csv(profile, tmp_path / "profile.csv")
     lines = path.read_text(encoding="utf-8").splitlines()
     notes = [line for line in lines if line.startswith("#")]
-    assert len(notes) == PROFILE_SKIPROWS - 1 and lines[:len(notes)] == notes
-    assert lines[len(notes)] == ",".join(PROFILE_COLUMNS) == "s,u,v,value"
+    assert lines[0] == "s_bohr,u_bohr,v_bohr,value_per_bohr3_2"  # the names first, with units
+    assert lines[1:1 + len(notes)] == notes and PROFILE_SKIPROWS == 1
+    assert [name.partition("_")[0] for name in lines[0].split(",")] == list(PROFILE_COLUMNS)
     table = np.loadtxt(path, delimiter=",", skiprows=PROFILE_SKIPROWS)
     assert table.shape == (300, 4)
     for column, expected in zip(table.T, (profile.s, profile.u, profile.v, profile.values), strict=True):
         np.testing.assert_array_equal(column, expected)  # shortest round-trip text: bit for bit
     assert np.isnan(table[0, 3]) and np.isfinite(table[-1, 3])
     header = "\n".join(notes)
-    for part in (f"zeffir {__version__}", "spec: H 2p1", "model: hydrogenic", "xz plane",
+    for part in (f"zeffir_version: {__version__}", "format_version: 2", "spec: H 2p1",
+                 "model: hydrogenic", "xz plane",
                  "start (x, z) = (-9.0, -6.0) bohr", "end (3.0, 5.0) bohr",
                  "s, u, v in bohr; value in bohr⁻³ᐟ²", "u = x, v = z", "value = ψ"):
         assert part in header
@@ -212,7 +214,7 @@ def test_csv_round_trip_with_numpy(tmp_path, profile):
 def test_copied_text_is_the_file_with_tabs(profile):
     text = profile_csv_text(profile, delimiter="\t")
     assert text.replace("\t", ",") == profile_csv_text(profile)
-    assert text.splitlines()[PROFILE_SKIPROWS - 1] == "s\tu\tv\tvalue"
+    assert text.splitlines()[0] == "s_bohr\tu_bohr\tv_bohr\tvalue_per_bohr3_2"
 
 
 @pytest.mark.parametrize("where", ["missing/profile.csv", "a_file/profile.csv", "a_folder"])

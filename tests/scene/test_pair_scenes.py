@@ -4,6 +4,7 @@ from dataclasses import replace
 
 import numpy as np
 import pytest
+from scipy.integrate import trapezoid
 
 from zeffir.core import build
 from zeffir.core.pairs import DOWN, UP, hund_determinant, spin_density_on_plane
@@ -60,7 +61,7 @@ def test_two_electron_maps(spec):
     r = scenes.singlet.coordinates
     for panel in (scenes.singlet, scenes.triplet):
         # ∫∫ P(r1, r2) dr1 dr2 = 1 (trapezoid rule on the displayed grid).
-        assert np.trapezoid(np.trapezoid(panel.values, r), r) == pytest.approx(1.0, abs=2e-3)
+        assert trapezoid(trapezoid(panel.values, r), r) == pytest.approx(1.0, abs=2e-3)
     np.testing.assert_allclose(scenes.difference.values, scenes.triplet.values - scenes.singlet.values)
     if spec.startswith("Li+"):
         # Both s: the exchange term survives the angular integration, so the triplet
@@ -172,3 +173,13 @@ def test_the_log_scale_spans_the_chosen_number_of_decades():
     scene = slice_scene(Source("Ne"), OrbitalChoice("2p"), settings)
     low, high = scene.colour_range
     assert high - low == pytest.approx(3.0)
+
+
+def test_the_pair_views_plane_line_follows_the_length_unit():
+    from zeffir.core import ANGSTROM_PER_BOHR
+
+    state = ViewState(left=Source("N", "slater"), view="pair", length_unit="angstrom",
+                      slice=SliceSettings(offset=0.5, resolution=24, extent=3.0, fit_extent=False),
+                      pair=PairSettings(reference=(0.0, 0.5, 1.0))).validated()
+    text = pair_scenes(state).same_spin.plane_text
+    assert f"y = {0.5 * ANGSTROM_PER_BOHR:g} Å" in text and "bohr" not in text

@@ -2,6 +2,7 @@
 
 import numpy as np
 import pytest
+from scipy.integrate import trapezoid
 
 from zeffir.core import ANGSTROM_PER_BOHR, Plane, build, orbital_on_plane
 from zeffir.scene import (
@@ -25,7 +26,7 @@ def test_radial_distribution_curves_integrate_to_the_occupancies():
     scene = radial_scene(Source("Ne", "slater"), RadialSettings(r_limit=40.0))
     for curve in scene.curves:
         expected = 10 if curve.subshell is None else int(curve.label.split(", ")[1].split()[0])
-        assert np.trapezoid(curve.y, curve.x) == pytest.approx(expected, rel=1e-4)
+        assert trapezoid(curve.y, curve.x) == pytest.approx(expected, rel=1e-4)
 
 
 def test_angstrom_scene_is_the_bohr_scene_rescaled():

@@ -209,8 +209,11 @@ def test_copy_puts_the_tab_separated_numbers_on_the_clipboard(profile_view, p_z)
     profile_view._copy_button.click()
     text = QApplication.clipboard().text()
     lines = text.splitlines()
-    assert lines[PROFILE_SKIPROWS - 1] == "s\tu\tv\tvalue" and len(lines) == PROFILE_SKIPROWS + 50
-    first = [float(x) for x in lines[PROFILE_SKIPROWS].split("\t")]
+    # The names (with units) first, then the '#' notes, then the numbers.
+    assert lines[0] == "s_bohr\tu_bohr\tv_bohr\tvalue_per_bohr3_2"
+    numbers = [line for line in lines[1:] if not line.startswith("#")]
+    assert len(numbers) == 50 and PROFILE_SKIPROWS == 1
+    first = [float(x) for x in numbers[0].split("\t")]
     assert first == [0.0, -1.0, -2.0, float(profile.values[0])]
 
 

@@ -9,7 +9,15 @@ from zeffir.export._data import CAUTION, DATA_FORMATS, write_data
 from zeffir.export._errors import ExportError, SessionError
 from zeffir.export._figures import DPI_RANGE, FIGURE_FORMATS, write_figure
 from zeffir.export._profile_data import PROFILE_SKIPROWS, profile_csv_text, write_profile_csv
-from zeffir.export._session import SESSION_KIND, SESSION_SUFFIX, SESSION_VERSION, load_session, save_session
+from zeffir.export._session import (
+    MAX_NESTING,
+    MAX_SESSION_BYTES,
+    SESSION_KIND,
+    SESSION_SUFFIX,
+    SESSION_VERSION,
+    load_session,
+    save_session,
+)
 from zeffir.export._style import COLUMN_WIDTHS
 from zeffir.export._view import EXPORT_FORMATS, export_view, view_target
 
@@ -20,6 +28,8 @@ __all__ = [
     "DPI_RANGE",
     "EXPORT_FORMATS",
     "FIGURE_FORMATS",
+    "MAX_NESTING",
+    "MAX_SESSION_BYTES",
     "PROFILE_SKIPROWS",
     "SESSION_KIND",
     "SESSION_SUFFIX",

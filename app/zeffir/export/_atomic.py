@@ -4,6 +4,10 @@ Data go to a temporary file in the target's directory (so the final rename stays
 one file system), are flushed and synced to disk, and the temporary file then
 replaces the target with :func:`os.replace`. On any failure the temporary file is
 removed and the target is left as it was.
+
+A path that is a symbolic link is written through: the file the link points to is
+replaced (its temporary file beside it) and the link stays a link. A dangling link
+creates its target when the target's folder exists.
 """
 
 from __future__ import annotations
@@ -17,9 +21,11 @@ from typing import BinaryIO
 
 from zeffir.export._errors import ExportError
 
-__all__ = ["atomic_file", "atomic_path", "cannot_write", "write_atomic"]
+__all__ = ["atomic_file", "atomic_path", "cannot_write", "resolve_link", "write_atomic"]
 
 _ATTEMPTS = 16
+#: Links followed before a chain is taken for a loop (Linux's own limit is 40).
+_MAX_LINKS = 40
 
 
 def cannot_write(path: str | os.PathLike[str], error: OSError) -> ExportError:
@@ -35,7 +41,46 @@ def _check_target(path: Path) -> None:
         raise ExportError(f"{path}: cannot write (Is a directory)")
 
 
-def _open_temporary(path: Path) -> tuple[Path, int]:
+def resolve_link(path: Path) -> Path:
+    """The file that writing ``path`` must replace: ``path`` itself, or where its link points.
+
+    Only the last component is followed (a linked folder is an ordinary folder here),
+    link by link, so a relative link is taken relative to the folder holding it.
+
+    Parameters
+    ----------
+    path : Path
+        The path asked for.
+
+    Returns
+    -------
+    Path
+        ``path`` when it is not a symbolic link, else the end of its chain of links
+        (which need not exist yet).
+
+    Raises
+    ------
+    ExportError
+        A loop of links, or a dangling link whose target's folder does not exist.
+    """
+    current = path
+    for _ in range(_MAX_LINKS):
+        if not current.is_symlink():
+            break
+        try:
+            link = Path(os.readlink(current))
+        except OSError as error:
+            raise cannot_write(path, error) from error
+        current = link if link.is_absolute() else current.parent / link
+    else:
+        raise ExportError(f"{path}: cannot write (a loop of symbolic links)")
+    if current != path and not current.exists() and not current.parent.is_dir():
+        raise ExportError(f"{path}: cannot write (it is a symbolic link to {current}, "
+                          f"whose folder {current.parent} does not exist)")
+    return current
+
+
+def _open_temporary(path: Path, requested: Path) -> tuple[Path, int]:
     """Create a new, empty temporary file beside ``path``; return it and its descriptor.
 
     ``os.open`` with mode 0o666 lets the user's umask decide the permissions, as for
@@ -43,15 +88,15 @@ def _open_temporary(path: Path) -> tuple[Path, int]:
     """
     flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
     for _ in range(_ATTEMPTS):
-        # Keep the target's suffix last, for writers that pick a format from it.
-        temporary = path.with_name(f".{path.stem}.{secrets.token_hex(4)}.tmp{path.suffix}")
+        # Keep the requested suffix last, for writers that pick a format from it.
+        temporary = path.with_name(f".{path.stem}.{secrets.token_hex(4)}.tmp{requested.suffix}")
         try:
             return temporary, os.open(temporary, flags, 0o666)
         except FileExistsError:
             continue
         except OSError as error:
-            raise cannot_write(path, error) from error
-    raise ExportError(f"{path}: cannot write (no free temporary name in {path.parent})")
+            raise cannot_write(requested, error) from error
+    raise ExportError(f"{requested}: cannot write (no free temporary name in {path.parent})")
 
 
 def _sync_file(temporary: Path) -> None:
@@ -82,11 +127,11 @@ def _discard(temporary: Path) -> None:
         temporary.unlink()
 
 
-def _commit(temporary: Path, path: Path) -> None:
+def _commit(temporary: Path, path: Path, requested: Path) -> None:
     try:
         os.replace(temporary, path)
     except OSError as error:
-        raise cannot_write(path, error) from error
+        raise cannot_write(requested, error) from error
     _sync_directory(path.parent if str(path.parent) else Path("."))
 
 
@@ -95,7 +140,8 @@ def atomic_path(path: str | os.PathLike[str]) -> Iterator[Path]:
     """Give a writer a temporary path that replaces ``path`` when the block succeeds.
 
     For writers that want a file name rather than a file object. The temporary
-    name ends with the target's suffix.
+    name ends with the target's suffix. When ``path`` is a symbolic link, the file it
+    points to is replaced and the link is kept (see :func:`resolve_link`).
 
     Parameters
     ----------
@@ -115,19 +161,22 @@ def atomic_path(path: str | os.PathLike[str]) -> Iterator[Path]:
         is then untouched and no temporary file is left behind. Any other exception
         raised inside the block also removes the temporary file and propagates.
     """
-    target = Path(path)
-    _check_target(target)
-    temporary, fd = _open_temporary(target)
+    requested = Path(path)
+    _check_target(requested)
+    target = resolve_link(requested)
+    if target != requested:
+        _check_target(target)
+    temporary, fd = _open_temporary(target, requested)
     os.close(fd)
     try:
         yield temporary
         _sync_file(temporary)
-        _commit(temporary, target)
+        _commit(temporary, target, requested)
     except OSError as error:
         _discard(temporary)
         if isinstance(error, ExportError):
             raise
-        raise cannot_write(target, error) from error
+        raise cannot_write(requested, error) from error
     except BaseException:
         _discard(temporary)
         raise

@@ -138,6 +138,7 @@ def _metadata(suffix: str) -> dict[str, Any]:
     if suffix == ".pdf":
         # No creation date: the same view exports to the same bytes.
         return {"Creator": creator, "Producer": creator, "CreationDate": None}
+    # SVG: no date either; the rc salt fixes the generated ids (see _style.rc_parameters).
     return {"Creator": creator, "Date": None}
 
 

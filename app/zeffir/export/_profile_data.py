@@ -1,4 +1,11 @@
-"""Data file of a line profile: CSV with '#' notes, a row of column names, then s, u, v, value."""
+"""Data file of a line profile: a row of column names with units, '#' notes, then s, u, v, value.
+
+Format version 2 (see :mod:`zeffir.export._data`): the names come first and carry
+their unit (``s_bohr, u_bohr, v_bohr, value_per_bohr3_2``), so
+``numpy.genfromtxt(path, delimiter=",", names=True, comments="#")`` and
+``pandas.read_csv(path, comment="#")`` read the file as it is. Version 1 had eleven
+notes first and the bare names ``s, u, v, value``.
+"""
 
 from __future__ import annotations
 
@@ -8,27 +15,25 @@ from typing import Final
 
 import numpy as np
 
-from zeffir import __version__
 from zeffir.core import CODATA_EDITION
 from zeffir.export._atomic import write_atomic
-from zeffir.export._data import CAUTION
+from zeffir.export._data import CAUTION, UNIT_TOKENS_NOTE, unit_token, unit_token_of_text, version_note
 from zeffir.scene._profile import LineProfile
 
-__all__ = ["PROFILE_COLUMNS", "PROFILE_SKIPROWS", "profile_csv_text", "write_profile_csv"]
+__all__ = ["PROFILE_COLUMNS", "PROFILE_SKIPROWS", "profile_column_names", "profile_csv_text",
+           "write_profile_csv"]
 
-#: Names in the column row: fixed, whatever the plane, so scripts can rely on them.
+#: Stems of the column names, fixed whatever the plane; each name adds ``_{unit}``.
 PROFILE_COLUMNS: Final[tuple[str, ...]] = ("s", "u", "v", "value")
 
-#: '#' note lines of every profile file; the same count always, so that
-#: ``np.loadtxt(path, delimiter=",", skiprows=PROFILE_SKIPROWS)`` reads the numbers.
-_NOTE_LINES: Final[int] = 11
-
-#: Lines before the numbers: the notes and the row of column names.
-PROFILE_SKIPROWS: Final[int] = _NOTE_LINES + 1
+#: Lines before the numbers that are not '#' notes (the row of column names):
+#: ``np.loadtxt(path, delimiter=",", skiprows=PROFILE_SKIPROWS)`` reads the numbers,
+#: since loadtxt skips the '#' lines itself.
+PROFILE_SKIPROWS: Final[int] = 1
 
 
 def _one_line(text: str) -> str:
-    # A note must stay one '#' line, or the fixed count above would break.
+    # A note must stay one '#' line.
     return " ".join(str(text).split())
 
 
@@ -37,29 +42,58 @@ def _number(value: float) -> str:
     return repr(float(value))
 
 
+def _split_label(profile: LineProfile) -> tuple[str, str]:
+    symbol, _, value_unit = profile.value_label.rpartition(" / ")
+    return symbol or profile.value_label, value_unit
+
+
+def profile_column_names(profile: LineProfile) -> tuple[str, ...]:
+    """The column names of a profile file: ``s, u, v, value``, each with its unit.
+
+    ``value`` takes the unit of the profile's label (``value_per_bohr3`` for a
+    density in bohr⁻³); a label whose unit the files do not spell keeps ``value``.
+
+    Parameters
+    ----------
+    profile : LineProfile
+
+    Returns
+    -------
+    tuple of str
+        Four names of letters, digits and ``_`` (kept as they are by genfromtxt).
+    """
+    length = unit_token(profile.length_unit, 1.0)
+    value_token = unit_token_of_text(_split_label(profile)[1])
+    value = f"value_{value_token}" if value_token else "value"
+    return f"s_{length}", f"u_{length}", f"v_{length}", value
+
+
 def _notes(profile: LineProfile) -> list[str]:
     unit = profile.length_symbol
-    symbol, _, value_unit = profile.value_label.rpartition(" / ")
-    symbol = symbol or profile.value_label
+    symbol, value_unit = _split_label(profile)
     u_name, v_name = profile.axis_names
     (u0, v0), (u1, v1) = profile.start, profile.end
+    s_name, u_col, v_col, value_name = profile_column_names(profile)
     notes = [
-        f"Zeffir line profile: {_NOTE_LINES} lines of notes, one row of column names, "
-        f"then {profile.s.size} rows; np.loadtxt(path, delimiter=',', skiprows={PROFILE_SKIPROWS})",
-        f"written by zeffir {__version__}; constants {CODATA_EDITION} (via scipy.constants)",
+        f"Zeffir line profile: the line above names the columns, these '#' lines describe them, "
+        f"then {profile.s.size} rows",
+        version_note(),
         f"title: {profile.title}",
         f"spec: {profile.spec}",
         f"model: {profile.model}",
         f"plane: {profile.plane_text}",
         f"segment: start ({u_name}, {v_name}) = ({_number(u0)}, {_number(v0)}) {unit}; "
         f"end ({_number(u1)}, {_number(v1)}) {unit}; length {_number(profile.length)} {unit}",
-        f"columns: s = distance from the start along the segment; u = {u_name}, v = {v_name} "
-        f"(in-plane coordinates); value = {symbol}",
+        f"columns: {s_name}: s = distance from the start along the segment; {u_col}, {v_col}: "
+        f"u = {u_name}, v = {v_name} (in-plane coordinates); {value_name}: value = {symbol}",
         f"units: s, u, v in {unit}; value in {value_unit or 'the units of ' + symbol}",
+        UNIT_TOKENS_NOTE,
         "sampling: bilinear interpolation of the slice grid; nan where the segment leaves the slice",
+        f"constants: {CODATA_EDITION} (via scipy.constants)",
         f"caution: {CAUTION}",
+        "read with numpy.genfromtxt(path, delimiter=',', names=True, comments='#') "
+        "or pandas.read_csv(path, comment='#')",
     ]
-    assert len(notes) == _NOTE_LINES
     return [f"# {_one_line(note)}" for note in notes]
 
 
@@ -76,12 +110,12 @@ def profile_csv_text(profile: LineProfile, delimiter: str = ",") -> str:
     Returns
     -------
     str
-        ``PROFILE_SKIPROWS − 1`` note lines starting with ``#``, the column names
-        ``s, u, v, value``, then one row per sample.
+        The column names (:func:`profile_column_names`), note lines starting with
+        ``#``, then one row per sample.
     """
     table = np.column_stack((profile.s, profile.u, profile.v, profile.values))
     rows = (delimiter.join(_number(x) for x in row) for row in table.tolist())
-    lines = [*_notes(profile), delimiter.join(PROFILE_COLUMNS), *rows]
+    lines = [delimiter.join(profile_column_names(profile)), *_notes(profile), *rows]
     return "\n".join(lines) + "\n"
 
 
@@ -109,9 +143,10 @@ def write_profile_csv(profile: LineProfile, path: str | os.PathLike[str]) -> Pat
     Notes
     -----
     Lengths are in the profile's unit (bohr or Å), the value in the unit of its
-    label. The notes name the Zeffir version, spec, model, plane, the segment's
-    ends and the units. Read the numbers with
-    ``np.loadtxt(path, delimiter=",", skiprows=PROFILE_SKIPROWS)`` or
-    ``pandas.read_csv(path, comment="#")``.
+    label. The notes name the format and Zeffir versions, spec, model, plane, the
+    segment's ends and the units. Read the file with
+    ``numpy.genfromtxt(path, delimiter=",", names=True, comments="#")``,
+    ``pandas.read_csv(path, comment="#")`` or, numbers only,
+    ``np.loadtxt(path, delimiter=",", skiprows=PROFILE_SKIPROWS)``.
     """
     return write_atomic(path, profile_csv_text(profile))

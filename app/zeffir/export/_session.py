@@ -7,6 +7,15 @@ A session file is one JSON object::
 where ``state`` is :meth:`ViewState.to_dict`. Reading checks every layer and
 raises :class:`SessionError` naming the problem; the caller's state is never
 touched, because a new state is returned only when everything is valid.
+
+What a file may hold: at most :data:`MAX_SESSION_BYTES` (2 MiB; refused before it
+is parsed), UTF-8 without a byte-order mark, one JSON object with no key twice in
+any object and nested at most :data:`MAX_NESTING` deep. Every field of ``state`` is
+then checked for its type (:meth:`ViewState.from_dict`) and its range
+(:meth:`ViewState.validated`); ``NaN``/``Infinity`` are read but refused wherever a
+number is used, and an integer literal of more than :data:`_MAX_DIGITS` digits is
+read as ±10**100 so that the field's range check names it (converting it exactly
+would be quadratic, and Python refuses past 4300 digits anyway).
 """
 
 from __future__ import annotations
@@ -21,7 +30,15 @@ from zeffir.export._atomic import write_atomic
 from zeffir.export._errors import ExportError, SessionError
 from zeffir.state import StateError, ViewState
 
-__all__ = ["SESSION_KIND", "SESSION_SUFFIX", "SESSION_VERSION", "load_session", "save_session"]
+__all__ = [
+    "MAX_NESTING",
+    "MAX_SESSION_BYTES",
+    "SESSION_KIND",
+    "SESSION_SUFFIX",
+    "SESSION_VERSION",
+    "load_session",
+    "save_session",
+]
 
 #: File suffix of session files.
 SESSION_SUFFIX: Final[str] = ".zeffir"
@@ -29,8 +46,12 @@ SESSION_SUFFIX: Final[str] = ".zeffir"
 SESSION_VERSION: Final[int] = 1
 #: The ``kind`` field that marks a file as a Zeffir session.
 SESSION_KIND: Final[str] = "zeffir-session"
-#: A session holds a few kilobytes; anything far larger is not one (and is not read whole).
-MAX_SESSION_BYTES: Final[int] = 1 << 20
+#: A session holds a few kilobytes; a file larger than this (2 MiB) is refused before parsing.
+MAX_SESSION_BYTES: Final[int] = 2 << 20
+#: Deepest nesting of arrays and objects a session file may have (a state needs 4).
+MAX_NESTING: Final[int] = 32
+#: Integer literals longer than this are read as ±10**100 (out of every field's range).
+_MAX_DIGITS: Final[int] = 100
 
 
 def save_session(path: str | os.PathLike[str], state: ViewState) -> Path:
@@ -97,12 +118,12 @@ def load_session(path: str | os.PathLike[str]) -> ViewState:
     document = _read_document(source)
     kind = document.get("kind")
     if kind != SESSION_KIND:
-        found = "no 'kind' field" if kind is None else f"its kind is {kind!r}"
+        found = "no 'kind' field" if "kind" not in document else f"its kind is {_shown(kind)}"
         raise SessionError(f"{source}: not a Zeffir session ({found}; expected {SESSION_KIND!r})")
     version = document.get("version")
-    if isinstance(version, bool) or not isinstance(version, int) or version < 1:
-        raise SessionError(f"{source}: not a Zeffir session (version {version!r} is not a whole "
-                           "number from 1)")
+    if isinstance(version, bool) or not isinstance(version, int) or not 1 <= version <= 10**6:
+        raise SessionError(f"{source}: not a Zeffir session (version {_shown(version)} is not a "
+                           "whole number from 1)")
     if version > SESSION_VERSION:
         raise SessionError(f"{source}: made by a newer Zeffir (version {version}); "
                            f"this one reads up to {SESSION_VERSION}")
@@ -115,6 +136,7 @@ def load_session(path: str | os.PathLike[str]) -> ViewState:
 
 
 def _read_document(source: Path) -> dict[str, Any]:
+    """The file's top-level JSON object, or :class:`SessionError` for any file-level problem."""
     try:
         with source.open("rb") as stream:
             raw = stream.read(MAX_SESSION_BYTES + 1)
@@ -122,19 +144,83 @@ def _read_document(source: Path) -> dict[str, Any]:
         reason = error.strerror or str(error)
         raise SessionError(f"{source}: cannot read ({reason})") from None
     if len(raw) > MAX_SESSION_BYTES:
-        raise SessionError(f"{source}: not a Zeffir session (larger than {MAX_SESSION_BYTES // 1024} KiB)")
+        raise SessionError(f"{source}: not a Zeffir session (larger than "
+                           f"{MAX_SESSION_BYTES // (1 << 20)} MiB)")
+    if not raw.strip():
+        raise SessionError(f"{source}: not a Zeffir session (the file is empty)")
+    if raw.startswith(b"\xef\xbb\xbf"):
+        raw = raw[3:]  # a UTF-8 byte-order mark, as some editors write: harmless
+    if raw.startswith((b"\xff\xfe", b"\xfe\xff")):
+        raise SessionError(f"{source}: not a Zeffir session (it starts with a UTF-16 byte-order "
+                           "mark; session files are UTF-8)")
     try:
-        text = raw.decode("utf-8-sig")
-    except UnicodeDecodeError:
-        raise SessionError(f"{source}: not a Zeffir session (not UTF-8 text)") from None
+        text = raw.decode("utf-8")
+    except UnicodeDecodeError as error:
+        raise SessionError(f"{source}: not a Zeffir session (not UTF-8 text: byte {error.start} "
+                           "is invalid)") from None
     try:
-        document = json.loads(text)
+        document = json.loads(text, object_pairs_hook=_unique_keys, parse_int=_bounded_int)
     except json.JSONDecodeError as error:
         raise SessionError(f"{source}: not a Zeffir session: invalid JSON at line {error.lineno}, "
                            f"column {error.colno} ({error.msg})") from None
+    except _DuplicateKeyError as error:
+        raise SessionError(f"{source}: not a Zeffir session: the key {_shown(error.args[0])} "
+                           "appears twice in one object") from None
     except RecursionError:
         raise SessionError(f"{source}: not a Zeffir session: JSON nested too deeply") from None
     if not isinstance(document, dict):
         raise SessionError(f"{source}: not a Zeffir session (expected a JSON object, "
-                           f"found {type(document).__name__})")
+                           f"found {_json_type(document)})")
+    if _nesting(document) > MAX_NESTING:
+        raise SessionError(f"{source}: not a Zeffir session: JSON nested deeper than "
+                           f"{MAX_NESTING} levels")
     return document
+
+
+class _DuplicateKeyError(Exception):
+    """A key appears twice in one JSON object (json would keep the last silently)."""
+
+
+def _unique_keys(pairs: list[tuple[str, Any]]) -> dict[str, Any]:
+    document: dict[str, Any] = {}
+    for key, value in pairs:
+        if key in document:
+            raise _DuplicateKeyError(key)
+        document[key] = value
+    return document
+
+
+def _bounded_int(digits: str) -> int:
+    """An integer literal; past :data:`_MAX_DIGITS` digits, ±10**100 without converting it."""
+    if len(digits.lstrip("-")) > _MAX_DIGITS:
+        return -(10**100) if digits.startswith("-") else 10**100
+    return int(digits)
+
+
+def _nesting(document: Any) -> int:
+    """How deeply arrays and objects nest in ``document`` (1 for a flat object), without recursion."""
+    deepest, stack = 0, [(document, 1)]
+    while stack:
+        value, depth = stack.pop()
+        deepest = max(deepest, depth)
+        if deepest > MAX_NESTING:
+            break
+        children = value.values() if isinstance(value, dict) else value
+        stack.extend((child, depth + 1) for child in children if isinstance(child, dict | list))
+    return deepest
+
+
+def _json_type(value: Any) -> str:
+    names = {list: "an array", str: "a string", bool: "true or false", type(None): "null"}
+    return names.get(type(value), "a number")
+
+
+def _shown(value: Any) -> str:
+    """A short rendering of a value read from a file, for a message (never huge, never failing)."""
+    if isinstance(value, str):
+        return repr(value) if len(value) <= 40 else f"{value[:40]!r}… ({len(value)} characters)"
+    if isinstance(value, int) and not isinstance(value, bool) and abs(value) >= 10**18:
+        return "a very large number"
+    if isinstance(value, bool | int | float) or value is None:
+        return repr(value)
+    return _json_type(value)

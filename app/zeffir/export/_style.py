@@ -92,6 +92,10 @@ def rc_parameters() -> dict[str, Any]:
         "figure.constrained_layout.wspace": 0.02,
         # TrueType (not Type 3) fonts in PDF: editable text, as journals ask for.
         "pdf.fonttype": 42,
-        # Glyphs as outlines in SVG, so the figure looks the same without our fonts.
-        "svg.fonttype": "path",
+        # Text stays text in SVG (<text> elements naming the font), so it can be edited,
+        # searched and restyled; a viewer without DejaVu Sans falls back to its sans-serif.
+        "svg.fonttype": "none",
+        # A fixed salt for the ids matplotlib derives from hashes: the same view exports
+        # to the same bytes (with no date in the metadata, see _figures._metadata).
+        "svg.hashsalt": "zeffir",
     }

@@ -74,7 +74,8 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
             f"use one of {', '.join(EXPORT_FORMATS)}"
         )
     if suffix == ".csv" and state.view != "radial":
-        raise ExportError(f"{target_path}: .csv holds radial curves; save the slice view as .npz")
+        raise ExportError(f"{target_path}: .csv holds radial curves; save the {state.view} view "
+                          "as .npz")
     if suffix == ".npz" and state.view == "radial":
         raise ExportError(f"{target_path}: .npz holds slice images; save the radial view as .csv")
     directory = target_path.parent

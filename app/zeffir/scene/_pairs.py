@@ -243,7 +243,7 @@ def pair_scenes(state: ViewState) -> PairScenes:
         axis_labels=_axes(state, symbol), value_label="", length_unit=unit, values=same, image=same,
         coordinates=plane.coordinates() * scale, signed=False, log_scale=False, colour_range=(0.0, 1.0),
         levels=(), zero_contour=False, sequential_map=state.pair.colour.sequential_map,
-        diverging_map=state.pair.colour.diverging_map, value_factor=density,
+        diverging_map=state.pair.colour.diverging_map, value_factor=density, plane=plane,
     )
     contours = state.slice.contours
     colour = state.pair.colour
@@ -355,11 +355,11 @@ def _marker_of(state: ViewState, r1: FloatArray) -> tuple[float, float] | None:
 
 
 def _plane_words(state: ViewState) -> str:
-    s = state.slice
-    if s.plane in ("xy", "xz", "yz"):
-        axis = ({"x", "y", "z"} - set(s.plane)).pop()
-        return f"{s.plane} plane, {axis} = {s.offset:g} bohr"
-    return f"plane ⟂ ({s.normal[0]:g}, {s.normal[1]:g}, {s.normal[2]:g}), offset {s.offset:g} bohr"
+    """The plane in words, its offset in the display unit (as the slice view says it)."""
+    from zeffir.scene._slice import _plane_text
+
+    unit = state.length_unit
+    return _plane_text(state.slice, length_symbol(unit), length_factor(unit, 1.0))
 
 
 def _axes(state: ViewState, symbol: str) -> tuple[str, str]:

@@ -52,6 +52,10 @@ class SliceScene:
         draws this scene follows ``signed`` (see :attr:`colour_map`).
     value_factor : float
         Display units per atomic unit of the quantity (``values`` = atomic × factor).
+    plane : Plane or None
+        The plane the grid lies on (lengths in bohr): grid point (i, j) is
+        ``offset·n̂ + u_i ê₁ + v_j ê₂`` of :meth:`Plane.basis`, with u, v in bohr.
+        None for maps that are not on a plane (the two-electron maps).
     """
 
     title: str
@@ -76,6 +80,7 @@ class SliceScene:
     sequential_map: str = DEFAULT_SEQUENTIAL_MAP
     diverging_map: str = DEFAULT_DIVERGING_MAP
     value_factor: float = 1.0
+    plane: Plane | None = None
 
     @property
     def colour_map(self) -> str:
@@ -365,6 +370,7 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
         sequential_map=colour.sequential_map,
         diverging_map=colour.diverging_map,
         value_factor=factor,
+        plane=plane,
     )
 
 

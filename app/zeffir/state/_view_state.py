@@ -7,19 +7,26 @@ them. Nothing here imports Qt or does physics.
 from __future__ import annotations
 
 import math
+import re
+import unicodedata
 from dataclasses import dataclass, field, fields, replace
 from typing import Any, Final, Literal, get_args
 
 from zeffir.core import DEFAULT_MODEL, ZeffirError, model_names, parse_spec
+from zeffir.core.config import L_LETTERS, MAX_L
 from zeffir.core.density import MAX_RESOLUTION
 
 __all__ = [
     "COLOUR_LIMITS",
+    "COLOUR_VALUE_LIMIT",
     "DEFAULT_DIVERGING_MAP",
     "DEFAULT_SEQUENTIAL_MAP",
     "DIVERGING_MAP_NAMES",
+    "LENGTH_LIMIT",
     "LENGTH_UNITS",
     "MAX_SERIES",
+    "MAX_SPEC_LENGTH",
+    "MIN_LENGTH",
     "RADIAL_QUANTITIES",
     "SEQUENTIAL_MAP_NAMES",
     "SLICE_QUANTITIES",
@@ -58,6 +65,19 @@ DEFAULT_SEQUENTIAL_MAP: Final = "viridis"
 DEFAULT_DIVERGING_MAP: Final = "RdBu"
 #: Largest slice resolution offered in the window (the core accepts more).
 MAX_VIEW_RESOLUTION: Final[int] = min(1024, MAX_RESOLUTION)
+#: Largest length a state holds, in bohr (half-widths, offsets, r₁, radial limits): far
+#: beyond any atom, yet small enough that squares and grids stay finite.
+LENGTH_LIMIT: Final[float] = 1e4
+#: Smallest half-width or radial limit, in bohr (a tenth of the 1s radius of the heaviest atoms).
+MIN_LENGTH: Final[float] = 1e-3
+#: Largest magnitude of a manual colour limit (atomic units), as in the window's boxes.
+COLOUR_VALUE_LIMIT: Final[float] = 1e30
+#: Longest spec or determinant text (a full explicit configuration of element 118 is ~90).
+MAX_SPEC_LENGTH: Final[int] = 256
+#: Longest subshell label (``"20i"`` is the longest valid one).
+_MAX_SUBSHELL_LENGTH: Final[int] = 8
+#: Normal vectors: components up to this magnitude, the largest at least its inverse.
+_NORMAL_LIMIT: Final[float] = 1e6
 
 
 class StateError(ZeffirError, ValueError):
@@ -73,12 +93,7 @@ class Source:
 
     def validated(self) -> Source:
         """Return self after checking the spec parses and the model exists."""
-        try:
-            parse_spec(self.spec)
-        except ZeffirError as error:
-            raise StateError(f"spec: {error}") from None
-        if self.model not in model_names():
-            raise StateError(f"model: {self.model}: unknown model (use one of {', '.join(model_names())})")
+        _check_source("", self, parse=True)
         return self
 
 
@@ -147,13 +162,16 @@ class ColourSettings:
     def check(self, where: str) -> None:
         """Raise :class:`StateError` naming the first bad field as ``{where}.{field}``."""
         _check_choice(f"{where}.limits", self.limits, COLOUR_LIMITS)
-        if not _finite(self.low):
-            raise StateError(f"{where}.low: must be a finite number")
-        if not (_finite(self.high) and self.high > 0):
-            raise StateError(f"{where}.high: must be a positive finite number")
-        if not self.low < self.high:
-            raise StateError(f"{where}.low: must be below high ({self.high:g}), got {self.low:g}")
-        if not (1.0 <= self.log_decades <= 16.0):
+        low, high = _number(self.low), _number(self.high)
+        limit = f"{COLOUR_VALUE_LIMIT:.0e}"
+        if low is None or abs(low) > COLOUR_VALUE_LIMIT:
+            raise StateError(f"{where}.low: must be a finite number (magnitude at most {limit})")
+        if high is None or not 0 < high <= COLOUR_VALUE_LIMIT:
+            raise StateError(f"{where}.high: must be a positive finite number (at most {limit})")
+        if not low < high:
+            raise StateError(f"{where}.low: must be below high ({high:g}), got {low:g}")
+        decades = _number(self.log_decades)
+        if decades is None or not 1.0 <= decades <= 16.0:
             raise StateError(f"{where}.log_decades: between 1 and 16 decades")
         _check_choice(f"{where}.sequential_map", self.sequential_map, SEQUENTIAL_MAP_NAMES)
         _check_choice(f"{where}.diverging_map", self.diverging_map, DIVERGING_MAP_NAMES)
@@ -235,7 +253,7 @@ class CompareSettings:
     right: Source = field(default_factory=lambda: Source("Na", "clementi"))
     show_difference: bool = True
     same_atom: bool = True
-    more: tuple[Source, ...] = field(default=(), metadata={"items": Source})
+    more: tuple[Source, ...] = field(default=(), metadata={"items": Source, "max_items": MAX_SERIES - 2})
     overlay: bool = False
 
     def sources(self, main: Source) -> tuple[Source, ...]:
@@ -272,11 +290,15 @@ class ViewState:
     def validated(self) -> ViewState:
         """Check every field; return the state with the orbital choice reconciled.
 
+        Every field is checked for its type first (so a state built in code with a
+        wrong type fails as one read from a file does), then for its range.
+
         Raises
         ------
         StateError
             Naming the first offending field, e.g. ``slice.resolution: ...``.
         """
+        _check_types(self, "")
         self.left.validated()
         state = self
         if self.compare.same_atom and self.compare.right.spec != self.left.spec:
@@ -289,47 +311,45 @@ class ViewState:
         return self.compare.sources(self.left)
 
     def _validated(self) -> ViewState:
-        if len(self.compare.more) > MAX_SERIES - 2:
-            raise StateError(f"compare.more: at most {MAX_SERIES - 2} further series "
-                             f"({MAX_SERIES} in all)")
-        if self.compare.enabled:
-            try:
-                self.compare.right.validated()
-            except StateError as error:
-                raise StateError(f"compare.right.{error}") from None
-            for index, extra in enumerate(self.compare.more):
-                try:
-                    replace(extra, spec=extra.spec.strip() or self.left.spec).validated()
-                except StateError as error:
-                    raise StateError(f"compare.more[{index}].{error}") from None
+        compare = self.compare
+        if len(compare.more) > MAX_SERIES - 2:
+            raise StateError(_too_many_series("compare.more"))
+        # The comparison's sources are parsed only when it is on (they are not used
+        # otherwise), but their text and model are always checked.
+        _check_source("compare.right.", compare.right, parse=compare.enabled)
+        for index, extra in enumerate(compare.more):
+            _check_text(f"compare.more[{index}].spec", extra.spec, MAX_SPEC_LENGTH)
+            extra = replace(extra, spec=extra.spec.strip() or self.left.spec)
+            _check_source(f"compare.more[{index}].", extra, parse=compare.enabled)
         _check_choice("view", self.view, VIEW_NAMES)
         _check_choice("length_unit", self.length_unit, LENGTH_UNITS)
         _check_choice("radial.quantity", self.radial.quantity, RADIAL_QUANTITIES)
-        if self.radial.r_limit is not None and not (self.radial.r_limit > 0):
-            raise StateError("radial.r_limit: must be a positive number of bohr or empty")
+        _check_optional_length("radial.r_limit", self.radial.r_limit)
         s = self.slice
         _check_choice("slice.plane", s.plane, PLANE_NAMES)
         _check_choice("slice.quantity", s.quantity, SLICE_QUANTITIES)
-        if len(s.normal) != 3 or not any(abs(c) > 0 for c in s.normal):
-            raise StateError("slice.normal: three numbers, not all zero")
-        if not (s.extent > 0 and s.extent < 1e4):
-            raise StateError("slice.extent: must be a positive number of bohr (below 10000)")
-        if not (-1e4 < s.offset < 1e4):
-            raise StateError("slice.offset: must be a number of bohr between -10000 and 10000")
-        if not (16 <= s.resolution <= MAX_VIEW_RESOLUTION):
+        _check_normal("slice.normal", s.normal)
+        if not MIN_LENGTH <= s.extent <= LENGTH_LIMIT:
+            raise StateError(f"slice.extent: must be a positive number of bohr (from {MIN_LENGTH:g} "
+                             f"to {LENGTH_LIMIT:g})")
+        if not -LENGTH_LIMIT <= s.offset <= LENGTH_LIMIT:
+            raise StateError(f"slice.offset: must be a number of bohr between {-LENGTH_LIMIT:g} and "
+                             f"{LENGTH_LIMIT:g}")
+        if not 16 <= s.resolution <= MAX_VIEW_RESOLUTION:
             raise StateError(f"slice.resolution: must be between 16 and {MAX_VIEW_RESOLUTION}")
         s.colour.check("slice.colour")
-        if not (0 <= s.contours <= 40):
+        if not 0 <= s.contours <= 40:
             raise StateError("slice.contours: between 0 and 40 levels")
-        _check_choice("orbital.kind", self.orbital.kind, ("real", "complex"))
+        _check_orbital(self.orbital)
         _check_choice("pair.spin", self.pair.spin, ("up", "down"))
-        if len(self.pair.reference) != 3 or not all(abs(c) < 1e4 for c in self.pair.reference):
-            raise StateError("pair.reference: three coordinates in bohr (each below 10000)")
+        if not all(abs(c) <= LENGTH_LIMIT for c in self.pair.reference):
+            raise StateError(f"pair.reference: three coordinates in bohr (each between "
+                             f"{-LENGTH_LIMIT:g} and {LENGTH_LIMIT:g})")
+        _check_text("pair.determinant", self.pair.determinant, MAX_SPEC_LENGTH)
         _check_choice("two_electron.map", self.two_electron.map, ("radial", "collinear"))
-        if not (16 <= self.two_electron.resolution <= MAX_VIEW_RESOLUTION):
+        if not 16 <= self.two_electron.resolution <= MAX_VIEW_RESOLUTION:
             raise StateError(f"two_electron.resolution: must be between 16 and {MAX_VIEW_RESOLUTION}")
-        if self.two_electron.r_limit is not None and not (self.two_electron.r_limit > 0):
-            raise StateError("two_electron.r_limit: must be a positive number of bohr or empty")
+        _check_optional_length("two_electron.r_limit", self.two_electron.r_limit)
         self.pair.colour.check("pair.colour")
         self.two_electron.colour.check("two_electron.colour")
         return replace(self, orbital=reconcile_orbital(self.left.spec, self.orbital))
@@ -389,13 +409,164 @@ def _colour_from_flat_keys(data: dict[str, Any]) -> dict[str, Any]:
     return data
 
 
-def _finite(value: float) -> bool:
-    return isinstance(value, int | float) and math.isfinite(value)
+def _number(value: object) -> float | None:
+    """``value`` as a finite float, or None when it is not a number (bools are not) or not finite.
+
+    Never raises: an integer too large for a float (``float(10**400)`` overflows) is None.
+    """
+    if isinstance(value, bool) or not isinstance(value, int | float):
+        return None
+    try:
+        number = float(value)
+    except OverflowError:
+        return None
+    return number if math.isfinite(number) else None
+
+
+def _shown(value: object) -> str:
+    """A short, safe rendering of a bad value for a message.
+
+    Long text is cut, a huge integer is described by its size (``str`` of one over
+    4300 digits raises), and containers are named by their type (their ``repr``
+    could be huge or nested too deeply).
+    """
+    if isinstance(value, str):
+        return repr(value) if len(value) <= 40 else f"{value[:40]!r}… ({len(value)} characters)"
+    if isinstance(value, bool) or value is None or isinstance(value, float):
+        return repr(value)
+    if isinstance(value, int):
+        if value.bit_length() <= 64:
+            return repr(value)
+        return f"a whole number of about {int(value.bit_length() * math.log10(2)) + 1} digits"
+    return f"a {type(value).__name__}"
 
 
 def _check_choice(name: str, value: object, allowed: tuple[object, ...]) -> None:
-    if value not in allowed:
-        raise StateError(f"{name}: {value!r} is not one of {', '.join(map(str, allowed))}")
+    if not isinstance(value, str) or value not in allowed:
+        raise StateError(f"{name}: {_shown(value)} is not one of {', '.join(map(str, allowed))}")
+
+
+def _check_text(where: str, value: object, limit: int) -> None:
+    """Text of at most ``limit`` characters, without control characters or lone surrogates."""
+    if not isinstance(value, str):
+        raise StateError(f"{where}: expected text")
+    if len(value) > limit:
+        raise StateError(f"{where}: at most {limit} characters, got {len(value)}")
+    # A lone surrogate cannot be written as UTF-8 (a later save would fail); control
+    # characters have no place in a spec or a label (a tab is whitespace, as typed).
+    if any(c != "\t" and unicodedata.category(c) in ("Cc", "Cs") for c in value):
+        raise StateError(f"{where}: contains control characters or unpaired surrogates")
+
+
+def _check_source(where: str, source: Source, *, parse: bool) -> None:
+    """Check a source's text and model; parse its spec only when ``parse``."""
+    _check_text(f"{where}spec", source.spec, MAX_SPEC_LENGTH)
+    if not isinstance(source.model, str) or source.model not in model_names():
+        plain = isinstance(source.model, str) and len(source.model) <= 40 and source.model.isprintable()
+        shown = source.model if plain else _shown(source.model)
+        raise StateError(f"{where}model: {shown}: unknown model "
+                         f"(use one of {', '.join(model_names())})")
+    if parse:
+        try:
+            parse_spec(source.spec)
+        except ZeffirError as error:
+            raise StateError(f"{where}spec: {error}") from None
+
+
+def _check_optional_length(where: str, value: float | None) -> None:
+    if value is not None and not MIN_LENGTH <= value <= LENGTH_LIMIT:
+        raise StateError(f"{where}: must be a positive number of bohr (from {MIN_LENGTH:g} to "
+                         f"{LENGTH_LIMIT:g}) or empty")
+
+
+def _check_normal(where: str, normal: tuple[float, ...]) -> None:
+    components = [_number(c) for c in normal]
+    largest = max((abs(c) for c in components if c is not None), default=0.0)
+    # Components far apart in size would square to zero or infinity when normalised.
+    if None in components or not 1 / _NORMAL_LIMIT <= largest <= _NORMAL_LIMIT:
+        raise StateError(f"{where}: three numbers, not all zero (the largest in magnitude "
+                         f"between {1 / _NORMAL_LIMIT:g} and {_NORMAL_LIMIT:g})")
+
+
+_SUBSHELL_LABEL: Final = re.compile(rf"[1-9][0-9]?[{L_LETTERS}]")
+
+
+def _check_orbital(orbital: OrbitalChoice) -> None:
+    """The label's text, the kind, and m within ±l of the label (±MAX_L for a label that is none).
+
+    A label that names no occupied subshell is not an error: the state takes the
+    outermost subshell instead (:func:`reconcile_orbital`).
+    """
+    _check_text("orbital.subshell", orbital.subshell, _MAX_SUBSHELL_LENGTH)
+    _check_choice("orbital.kind", orbital.kind, ("real", "complex"))
+    label = orbital.subshell
+    l = L_LETTERS.index(label[-1]) if _SUBSHELL_LABEL.fullmatch(label) else MAX_L
+    if not -l <= orbital.m <= l:
+        owner = f" for {label}" if _SUBSHELL_LABEL.fullmatch(label) else ""
+        raise StateError(f"orbital.m: must be between {-l} and {l}{owner}")
+
+
+def _too_many_series(where: str) -> str:
+    return f"{where}: at most {MAX_SERIES - 2} further series ({MAX_SERIES} in all)"
+
+
+def _expected(current: object, f: Any) -> str:
+    """What a field holds, for the message when it holds something else."""
+    if hasattr(current, "__dataclass_fields__"):
+        return "expected an object"
+    if "items" in f.metadata:
+        return "expected a list of objects"
+    if isinstance(current, tuple):
+        return f"expected a list of {len(current)} numbers"
+    if isinstance(current, bool):
+        return "expected true or false"
+    if isinstance(current, int):
+        return "expected a whole number"
+    if current is None:
+        return "expected a number or null"
+    if isinstance(current, float):
+        return "expected a number"
+    return "expected text"
+
+
+def _is_number(value: object) -> bool:
+    return isinstance(value, int | float) and not isinstance(value, bool)
+
+
+def _check_types(obj: Any, path: str) -> None:
+    """Raise :class:`StateError` for the first field of ``obj`` whose type is not its default's.
+
+    Ints count as floats, bools are not numbers; whether a number is finite and in
+    range is the range checks' business. A list of objects (``CompareSettings.more``)
+    must not exceed its ``max_items``.
+    """
+    default = type(obj)()
+    for f in fields(obj):
+        value, current, where = getattr(obj, f.name), getattr(default, f.name), f"{path}{f.name}"
+        if hasattr(current, "__dataclass_fields__"):
+            ok = type(value) is type(current)
+        elif "items" in f.metadata:
+            if isinstance(value, tuple) and len(value) > f.metadata.get("max_items", len(value)):
+                raise StateError(_too_many_series(where))
+            ok = isinstance(value, tuple) and all(type(v) is f.metadata["items"] for v in value)
+        elif isinstance(current, tuple):
+            ok = (isinstance(value, tuple) and len(value) == len(current)
+                  and all(_is_number(v) for v in value))
+        elif isinstance(current, bool):
+            ok = isinstance(value, bool)
+        elif isinstance(current, int):
+            ok = isinstance(value, int) and not isinstance(value, bool)
+        elif current is None or isinstance(current, float):
+            ok = (value is None and current is None) or _is_number(value)
+        else:
+            ok = isinstance(value, str)
+        if not ok:
+            raise StateError(f"{where}: {_expected(current, f)}")
+        if hasattr(current, "__dataclass_fields__"):
+            _check_types(value, f"{where}.")
+        elif "items" in f.metadata:
+            for index, item in enumerate(value):
+                _check_types(item, f"{where}[{index}].")
 
 
 def reconcile_orbital(spec: str, choice: OrbitalChoice) -> OrbitalChoice:
@@ -426,6 +597,11 @@ def _as_dict(obj: Any) -> Any:
 
 
 def _from_dict(cls: Any, data: dict[str, Any], path: str) -> Any:
+    """Build ``cls`` from plain data, checking each field's type (ranges are :meth:`validated`'s).
+
+    Numbers must be finite and, for a float field, convertible to a float (an integer
+    of 400 digits is refused here, not overflowed); lists must have their length.
+    """
     default = cls()
     values: dict[str, Any] = {}
     for f in fields(cls):
@@ -434,40 +610,46 @@ def _from_dict(cls: Any, data: dict[str, Any], path: str) -> Any:
         raw = data[f.name]
         where = f"{path}{f.name}"
         current = getattr(default, f.name)
+        wrong = StateError(f"{where}: {_expected(current, f)}")
         if hasattr(current, "__dataclass_fields__"):
             if not isinstance(raw, dict):
-                raise StateError(f"{where}: expected an object")
+                raise wrong
             values[f.name] = _from_dict(type(current), raw, f"{where}.")
         elif "items" in f.metadata:
-            if not isinstance(raw, list) or not all(isinstance(v, dict) for v in raw):
-                raise StateError(f"{where}: expected a list of objects")
+            if not isinstance(raw, list):
+                raise wrong
+            if len(raw) > f.metadata.get("max_items", len(raw)):
+                raise StateError(_too_many_series(where))
+            if not all(isinstance(v, dict) for v in raw):
+                raise wrong
             values[f.name] = tuple(_from_dict(f.metadata["items"], v, f"{where}[{i}].")
                                    for i, v in enumerate(raw))
         elif isinstance(current, tuple):
-            if not isinstance(raw, list) or not all(_is_number(v) for v in raw):
-                raise StateError(f"{where}: expected a list of numbers")
-            values[f.name] = tuple(float(v) for v in raw)
+            if not (isinstance(raw, list) and len(raw) == len(current) and all(map(_is_number, raw))):
+                raise wrong
+            numbers = [_number(v) for v in raw]
+            if None in numbers:
+                raise StateError(f"{where}: expected {len(current)} finite numbers")
+            values[f.name] = tuple(numbers)
         elif isinstance(current, bool):
             if not isinstance(raw, bool):
-                raise StateError(f"{where}: expected true or false")
+                raise wrong
             values[f.name] = raw
         elif isinstance(current, int):
             if isinstance(raw, bool) or not isinstance(raw, int):
-                raise StateError(f"{where}: expected a whole number")
-            values[f.name] = raw
+                raise wrong
+            values[f.name] = raw  # any size: the range check compares it exactly
         elif current is None or isinstance(current, float):
             if raw is None and current is None:
                 values[f.name] = None
             elif not _is_number(raw):
-                raise StateError(f"{where}: expected a number")
+                raise wrong
+            elif (number := _number(raw)) is None:
+                raise StateError(f"{where}: expected a finite number, got {_shown(raw)}")
             else:
-                values[f.name] = float(raw)
+                values[f.name] = number
         else:
             if not isinstance(raw, str):
-                raise StateError(f"{where}: expected text")
+                raise wrong
             values[f.name] = raw
     return cls(**values)
-
-
-def _is_number(value: object) -> bool:
-    return isinstance(value, int | float) and not isinstance(value, bool) and value == value

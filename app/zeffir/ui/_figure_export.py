@@ -119,6 +119,7 @@ class FigureExport:
         return self._export(Path(path), None, 300)
 
     def _export(self, path: Path, width: str | None, dpi: int) -> bool:
+        path = path.resolve()  # the worker writes later; the folder kept must be absolute
         if self._model.state.view == "terms":
             self._status.showMessage(
                 "Not exported: the Terms view is a table; copy it with Ctrl+C, or use "

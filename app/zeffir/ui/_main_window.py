@@ -135,7 +135,7 @@ def _energy_summary(source: Source, orbitals: Any, unit: str = "bohr") -> str:
     Energies in hartree, or in eV when the display unit is Å (and eV).
     """
     from zeffir.core import EV_PER_HARTREE
-    from zeffir.core.energy import exact_energy
+    from zeffir.core.properties import energy_summary
 
     scale, name, digits = (EV_PER_HARTREE, "eV", 4) if unit == "angstrom" else (1.0, "Eh", 6)
 
@@ -149,15 +149,13 @@ def _energy_summary(source: Source, orbitals: Any, unit: str = "bohr") -> str:
             f"{total * scale:.{digits}f} {name}")
     if orbitals.virial_ratio is not None:
         text += f" (−V/T = {orbitals.virial_ratio:.8f})"
-    if source.model == "hartree-fock":
-        found = exact_energy(orbitals.configuration)
-        if found is None:
-            text += "; no published exact energy for this configuration"
-        else:
-            text += (f"; exact non-relativistic {found[0] * scale:.{digits}f} {name} ({found[1]}); "
-                     f"correlation energy {(found[0] - total) * scale:.{digits - 1}f} {name}")
-    elif source.model == "hartree-fock-average":
-        text += "; the average over the configuration's terms, not one state (no correlation energy)"
+    summary = energy_summary(orbitals, source.model)
+    if summary.correlation is not None and summary.exact is not None:
+        text += (f"; exact non-relativistic {summary.exact * scale:.{digits}f} {name} "
+                 f"({summary.exact_source}); correlation energy "
+                 f"{summary.correlation * scale:.{digits - 1}f} {name}")
+    elif summary.remark is not None:
+        text += f"; correlation energy {summary.remark}"
     return text
 
 

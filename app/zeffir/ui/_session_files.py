@@ -2,6 +2,9 @@
 
 A session file stores the view state (:mod:`zeffir.export` reads and writes it,
 atomically); this module holds the dialogs, the remembered folder and the recent list.
+Every path kept (the open file, the recent list, the last folder) is absolute and
+resolved when it is stored, so a relative path typed in one working directory still
+names the same file after the program moves to another.
 """
 
 from __future__ import annotations
@@ -59,14 +62,16 @@ class SessionFiles:
             if not chosen:
                 return False
             path = chosen
+        target = _absolute(path)
         try:
-            state = load_session(Path(path))
+            state = load_session(target)
         except SessionError as error:
             QMessageBox.warning(self._parent, "Session not opened", str(error))
             return False
-        self.path = Path(path)
-        self._model.set_state(state)
-        self._remember(Path(path))
+        if not self._model.set_state(state):  # it was validated; never adopt half a session
+            return False
+        self.path = target
+        self._remember(target)
         self._changed()
         return True
 
@@ -84,7 +89,7 @@ class SessionFiles:
             if not chosen:
                 return False
             path = chosen if chosen.endswith(".zeffir") else f"{chosen}.zeffir"
-        return self._write(Path(path))
+        return self._write(_absolute(path))
 
     def _write(self, path: Path) -> bool:
         from zeffir.core import ZeffirError
@@ -103,11 +108,16 @@ class SessionFiles:
         return True
 
     def _remember(self, path: Path) -> None:
+        path = _absolute(path)
         recent = [p for p in self.recent() if p != str(path)]
         recent.insert(0, str(path))
         self._settings.setValue("recent_sessions", recent[:MAX_RECENT])
-        self._settings.setValue("last_dir", str(path.parent))
+        self.remember_folder(path)
         self.refresh_recent()
+
+    def remember_folder(self, path: str | Path) -> None:
+        """Keep the folder of ``path`` (absolute, resolved) as the one dialogs start in."""
+        self._settings.setValue("last_dir", str(_absolute(path).parent))
 
     def recent(self) -> list[str]:
         """The recently opened or saved session files, newest first."""
@@ -129,5 +139,17 @@ class SessionFiles:
         menu.setEnabled(bool(recent))
 
     def last_dir(self) -> str:
-        """The folder last used for a session or an export."""
-        return str(self._settings.value("last_dir", str(Path.home())))
+        """The folder last used for a session or an export (absolute); the home folder at first.
+
+        A value that is not an absolute path (kept by an older version, or edited by
+        hand) is not guessed at: the home folder is offered instead.
+        """
+        value = self._settings.value("last_dir", "")
+        if isinstance(value, str) and value and Path(value).is_absolute():
+            return value
+        return str(Path.home())
+
+
+def _absolute(path: str | Path) -> Path:
+    """``path`` made absolute against the current folder, with links and ``..`` resolved."""
+    return Path(path).expanduser().resolve()

@@ -1,5 +1,6 @@
-"""Derived numbers: radial moments, maxima, nodes and the subshell table."""
+"""Derived numbers: radial moments, maxima, nodes, the subshell table and the energies."""
 
+from zeffir.core.properties._energies import EnergySummary, energy_summary
 from zeffir.core.properties._summary import (
     MOMENT_POWERS,
     SubshellSummary,
@@ -8,4 +9,5 @@ from zeffir.core.properties._summary import (
     summarise,
 )
 
-__all__ = ["MOMENT_POWERS", "SubshellSummary", "moments", "subshell_table", "summarise"]
+__all__ = ["MOMENT_POWERS", "EnergySummary", "SubshellSummary", "energy_summary", "moments",
+           "subshell_table", "summarise"]
