@@ -58,7 +58,7 @@ def bohr_to_angstrom(value: float | npt.ArrayLike) -> float | npt.NDArray[np.flo
 
     Examples
     --------
-    >>> abs(bohr_to_angstrom(1.0) - 0.529177) < 1e-6
+    >>> bool(abs(bohr_to_angstrom(1.0) - 0.529177) < 1e-6)
     True
     """
     return np.multiply(value, ANGSTROM_PER_BOHR)
@@ -83,7 +83,7 @@ def hartree_to_ev(value: float | npt.ArrayLike) -> float | npt.NDArray[np.float6
 
     Examples
     --------
-    >>> abs(hartree_to_ev(0.5) - 13.6057) < 1e-4
+    >>> bool(abs(hartree_to_ev(0.5) - 13.6057) < 1e-4)
     True
     """
     return np.multiply(value, EV_PER_HARTREE)

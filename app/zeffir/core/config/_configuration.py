@@ -315,8 +315,8 @@ def parse_spec(text: str) -> Configuration:
     --------
     >>> parse_spec("Fe3+").text
     '1s2 2s2 2p6 3s2 3p6 3d5'
-    >>> parse_spec("Eu3+").text[-18:], parse_spec("Eu3+").origin
-    ('5s2 5p6 4f6', 'observed')
+    >>> parse_spec("Eu3+").short_text, parse_spec("Eu3+").origin
+    ('[Xe] 4f6', 'observed')
     >>> parse_spec("He+ 2p1").n_electrons
     1
     """
