@@ -35,7 +35,7 @@ def test_panels_are_densities_and_hole_of_the_determinant(spec, reference, spin)
                                rtol=0, atol=1e-9 * same.max())
     np.testing.assert_allclose(scenes.opposite_spin.values, other, rtol=0,
                                atol=1e-9 * max(other.max(), 1e-300))
-    # Sum rule ∫ h_x d³r2 = −1 (quadrature described in scene._pairs.hole_integral).
+    # Sum rule ∫ h_x d³r2 = −1 (quadrature described in zeffir.core.pairs.hole_integral).
     assert scenes.hole_integral == pytest.approx(-1.0, abs=1e-3)
     assert scenes.hole_depth < 0
     assert scenes.same_spin.colour_range == scenes.opposite_spin.colour_range

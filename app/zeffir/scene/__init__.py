@@ -29,7 +29,6 @@ from zeffir.scene._pairs import (
     PairScenes,
     TwoElectronScenes,
     determinant_for,
-    hole_integral,
     pair_scenes,
     two_electron_scenes,
 )
@@ -96,7 +95,6 @@ __all__ = [
     "determinant_for",
     "fitted_extent",
     "forget_failure",
-    "hole_integral",
     "length_factor",
     "length_symbol",
     "line_profile",

@@ -14,7 +14,6 @@ from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, ClassVar
 
 import numpy as np
-from numpy.polynomial.legendre import leggauss
 
 from zeffir.core import OrbitalSet, ZeffirError
 from zeffir.core.orbitals import FloatArray
@@ -37,7 +36,7 @@ if TYPE_CHECKING:  # the pairs package is imported when a pair view is first com
 
 UP = 1  # spin up (α), as zeffir.core.pairs.UP
 
-__all__ = ["PairScenes", "TwoElectronScenes", "determinant_for", "hole_integral", "pair_scenes",
+__all__ = ["PairScenes", "TwoElectronScenes", "determinant_for", "pair_scenes",
            "two_electron_scenes"]
 
 
@@ -105,40 +104,6 @@ def determinant_for(orbitals: OrbitalSet, text: str) -> Determinant:
 
     configuration = orbitals.configuration
     return parse_determinant(configuration, text) if text.strip() else hund_determinant(configuration)
-
-
-def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: Determinant,
-                  radial_points: int = 96, polar_points: int = 32) -> float:
-    """∫ h_x^σ(r1; r2) d³r2 by a product quadrature centred on the nucleus.
-
-    Notes
-    -----
-    r = s·x/(1 − x) with x from Gauss–Legendre on (0, 1) (s the largest ⟨r⟩ of the
-    occupied subshells), Gauss–Legendre in cos θ and the trapezoid rule in φ
-    (2·``polar_points`` nodes, exact for trigonometric polynomials of the degrees
-    met here). The sum rule ∫ h_x = −1 holds for every r1 (Parr & Yang 1989, §2.4),
-    so the value shown is a check of the numbers on screen.
-    """
-    from zeffir.core.pairs import exchange_hole
-
-    scale = max(o.radial.expectation(1) for o in orbitals.orbitals)
-    x, wx = leggauss(radial_points)
-    x = 0.5 * (x + 1.0)
-    wx = 0.5 * wx
-    r = scale * x / (1.0 - x)
-    wr = scale * wx / (1.0 - x) ** 2 * r * r
-    t, wt = leggauss(polar_points)
-    phi = np.linspace(0.0, 2.0 * np.pi, 2 * polar_points, endpoint=False)
-    wphi = 2.0 * np.pi / phi.size
-    sin_t = np.sqrt(1.0 - t * t)
-    directions = np.stack(
-        [np.outer(sin_t, np.cos(phi)), np.outer(sin_t, np.sin(phi)), np.repeat(t[:, None], phi.size, 1)],
-        axis=-1,
-    ).reshape(-1, 3)
-    wdir = np.repeat(wt, phi.size) * wphi
-    points = (r[:, None, None] * directions[None, :, :]).reshape(-1, 3)
-    values = exchange_hole(orbitals, r1, points, spin, determinant).reshape(r.size, -1)
-    return float(np.sum(wr[:, None] * wdir[None, :] * values))
 
 
 def _image_scene(base: SliceScene, values: FloatArray, title: str, label: str,
@@ -212,7 +177,13 @@ def _hole_scene(base: SliceScene, hole: FloatArray, title: str, label: str, cont
 
 def pair_scenes(state: ViewState) -> PairScenes:
     """The pair view of ``state``: reference electron ``state.pair``, plane ``state.slice``."""
-    from zeffir.core.pairs import DOWN, exchange_hole_on_plane, pair_density_on_plane, spin_density
+    from zeffir.core.pairs import (
+        DOWN,
+        exchange_hole_on_plane,
+        hole_integral,
+        pair_density_on_plane,
+        spin_density,
+    )
 
     orbitals = orbitals_for(state.left)
     configuration = orbitals.configuration

@@ -16,6 +16,7 @@ from zeffir.core.pairs._determinant import (
     hund_determinant,
     parse_determinant,
 )
+from zeffir.core.pairs._hole_sum import hole_integral
 from zeffir.core.pairs._on_plane import (
     conditional_density_on_plane,
     exchange_hole_on_plane,
@@ -50,6 +51,7 @@ __all__ = [
     "exchange_hole",
     "exchange_hole_on_plane",
     "format_determinant",
+    "hole_integral",
     "hund_determinant",
     "one_matrix",
     "pair_density",
