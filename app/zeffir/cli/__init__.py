@@ -55,8 +55,10 @@ def _wants_progress(args: argparse.Namespace) -> bool:
         return False
     return bool(getattr(args, "progress", False)) or sys.stderr.isatty()
 
+
 def _progress_line(message: str) -> None:
     print(f"zeffir: {message}", file=sys.stderr, flush=True)
+
 
 def _run(args: argparse.Namespace) -> int:
     if args.command is None:
@@ -77,6 +79,7 @@ def _run(args: argparse.Namespace) -> int:
     if args.command == "figure":
         return _figure(args)
     return EXIT_OK  # pragma: no cover - argparse rejects unknown commands
+
 
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the exit status (see ``zeffir --help``)."""

@@ -39,11 +39,14 @@ class _UnitsAction(argparse.Action):
                  values: object, option_string: str | None = None) -> None:
         setattr(namespace, self.dest, _UNIT_NAMES[str(values)])
 
+
 class _InputError(Exception):
     """A command-line option is wrong; the message names the option."""
 
+
 def _finite_or_none(value: float | None) -> float | None:
     return None if value is None or not math.isfinite(value) else float(value)
+
 
 def _length_in_bohr(value: float | None, units: str, option: str) -> float | None:
     from zeffir.core import ANGSTROM_PER_BOHR
@@ -54,10 +57,12 @@ def _length_in_bohr(value: float | None, units: str, option: str) -> float | Non
         raise _InputError(f"{option}: {value} is not a finite number")
     return value if units == "atomic" else value / ANGSTROM_PER_BOHR
 
+
 def _angstrom_per_bohr() -> float:
     from zeffir.core import ANGSTROM_PER_BOHR
 
     return float(ANGSTROM_PER_BOHR)
+
 
 def split_specs(tokens: Sequence[str]) -> list[str]:
     """Group command-line words into specs: a configuration word continues the atom before it.

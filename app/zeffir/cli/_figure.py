@@ -132,6 +132,7 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str],
     output.add_argument("--dpi", type=int, default=300,
                         help=f"PNG resolution, {DPI_RANGE[0]} to {DPI_RANGE[1]} (default 300)")
 
+
 def parse_orbital(label: str) -> OrbitalChoice:
     """Read an orbital option: ``3s``, ``2px``, ``3dxy``, ``4fxyz`` (real) or ``3p:-1`` (complex m).
 
@@ -173,6 +174,7 @@ def parse_orbital(label: str) -> OrbitalChoice:
         raise QuantumNumberError(f"{label}: {reason}") from None
     return OrbitalChoice(subshell.label, "real", m)
 
+
 _STATE_FIELD_OPTIONS = {
     "compare.right.spec": "--versus",
     "compare.right.model": "--versus",
@@ -185,6 +187,7 @@ _STATE_FIELD_OPTIONS = {
     **{f"{part}.colour.{name}": "--limits" for part in ("slice", "pair", "two_electron")
        for name in ("low", "high")},
 }
+
 
 def figure_state(args: argparse.Namespace) -> ViewState:
     """Build the view state that ``zeffir figure`` exports from its parsed options."""
@@ -305,6 +308,7 @@ def figure_state(args: argparse.Namespace) -> ViewState:
     except ZeffirError as error:  # pragma: no cover - validation raises StateError
         raise _InputError(str(error)) from None
 
+
 def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewState:
     """``state`` with ``--log``, ``--limits`` and ``--colour-map`` in the shown view's colour settings.
 
@@ -351,6 +355,7 @@ def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewStat
         colour = replace(colour, limits="manual", low=low, high=high)
     part = getattr(state, subject.field)
     return replace(state, **{subject.field: replace(part, colour=colour)})
+
 
 def _figure(args: argparse.Namespace) -> int:
     from zeffir.export import DPI_RANGE, export_view

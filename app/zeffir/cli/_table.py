@@ -47,6 +47,7 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
         **_correlation_fields(orbitals, model),
     }
 
+
 def _correlation_fields(orbitals: Any, model: str) -> dict[str, Any]:
     """Exact energy and E_corr = E_exact − E_HF for the hartree-fock model (null elsewhere)."""
     from zeffir.core.properties import energy_summary

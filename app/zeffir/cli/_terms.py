@@ -15,6 +15,7 @@ from zeffir.cli._common import JSON_FORMAT_VERSION
 def _level_json(level: Level) -> dict[str, Any]:
     return {"S": level.S, "L": level.L, "J": level.J, "parity": level.parity, "label": level.label}
 
+
 def terms_json(spec: str) -> dict[str, Any]:
     """The ``terms --json`` object: every term (repeats listed), the Hund ground level, notes."""
     from zeffir.core import parse_spec
@@ -51,14 +52,18 @@ def terms_json(spec: str) -> dict[str, Any]:
         "notes": list(ground_notes(configuration)),
     }
 
+
 def _open_text(configuration: Configuration) -> str:
     return " ".join(f"{sub.label}{configuration.occupancy(sub)}" for sub in configuration.open_subshells)
+
 
 _MULTIPLICITY_NAMES = ("singlets", "doublets", "triplets", "quartets", "quintets", "sextets",
                        "septets", "octets", "nonets")
 
+
 def _half(value: float) -> str:
     return f"{value:g}" if value == int(value) else f"{round(2 * value)}/2"
+
 
 def _format_terms(spec: str) -> str:
     from collections import Counter

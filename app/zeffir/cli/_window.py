@@ -21,11 +21,13 @@ def _demo() -> int:
     print("Model estimates: non-relativistic, no electron correlation, point nucleus.")
     return 0
 
+
 def _has_display() -> bool:
     """False on a Linux machine with no display server and no Qt platform chosen."""
     if not sys.platform.startswith("linux") or os.environ.get("QT_QPA_PLATFORM"):
         return True
     return bool(os.environ.get("DISPLAY") or os.environ.get("WAYLAND_DISPLAY"))
+
 
 def _window(session: str | None) -> int:
     if not _has_display():

@@ -534,8 +534,8 @@ class MainWindow(QMainWindow):
                 old.left, old.length_unit, _table_versus(old)):
             self._request_table(new.left)
         drawn = self._drawn.get(new.view)
-        if new.view != old.view or _view_inputs(new) != _view_inputs(old):
-            if drawn is None or _view_inputs(drawn) != _view_inputs(new):
+        if new.view != old.view or view_inputs(new) != view_inputs(old):
+            if drawn is None or view_inputs(drawn) != view_inputs(new):
                 self._request_view(new)
             else:  # back to what the picture already shows: nothing to compute
                 self._asked[new.view] = new
@@ -604,7 +604,7 @@ class MainWindow(QMainWindow):
         view = state.view
         drawn = self._drawn.get(view)
         parts: list[str] = []
-        if drawn is None or _view_inputs(drawn) != _view_inputs(state):
+        if drawn is None or view_inputs(drawn) != view_inputs(state):
             showing = "nothing yet" if drawn is None else describe(drawn)
             reason = self._trouble.get(view, "computing…")
             parts.append(f"showing: {showing}; asked: {describe(state)} — {reason}")
@@ -633,7 +633,7 @@ class MainWindow(QMainWindow):
                     self._trouble[JobKey.TABLE] = "cancelled"
                 continue
             drawn = self._drawn.get(key)
-            if drawn is None or _view_inputs(drawn) != _view_inputs(self._asked[key]):
+            if drawn is None or view_inputs(drawn, key) != view_inputs(self._asked[key], key):
                 self._trouble[key] = "cancelled"
         self._refresh_banner()
 
@@ -876,8 +876,3 @@ def _point_mapper(state: ViewState) -> Any:
         return float(x), float(y), float(z)
 
     return point_of
-
-
-def _view_inputs(state: ViewState) -> tuple[object, ...]:
-    """The parts of the state the current view depends on (a change there recomputes it)."""
-    return view_inputs(state)
