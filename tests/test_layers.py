@@ -88,3 +88,51 @@ def test_the_contract_catches_lazy_and_relative_imports(tmp_path):
     scene.write_text("def g():\n    from zeffir.core import build\n    from zeffir.state import Source\n",
                      encoding="utf-8")
     assert _violations(scene, tmp_path) == []
+
+
+def _private_owner(module: str, names: list[str]) -> str | None:
+    """The package whose private part an import reaches into (None for a public import).
+
+    ``from zeffir.core.density._slices import x`` reaches into ``zeffir.core.density``;
+    ``from zeffir.core.pairs import _blocks`` into ``zeffir.core.pairs``.
+    """
+    parts = module.split(".")
+    for i, part in enumerate(parts):
+        if part.startswith("_") and not part.startswith("__"):
+            return ".".join(parts[:i])
+    if any(name.startswith("_") for name in names):
+        return module
+    return None
+
+
+def _private_reaches(path: Path, root: Path = PACKAGE) -> list[str]:
+    """Imports of another package's private modules or names (own package and below allowed)."""
+    own = ".".join(("zeffir", *path.relative_to(root).with_suffix("").parts))
+    tree = ast.parse(path.read_text(encoding="utf-8"))
+    wrong = []
+    for node in ast.walk(tree):
+        if not isinstance(node, ast.ImportFrom) or node.level or not node.module:
+            continue
+        if not node.module.startswith("zeffir"):
+            continue
+        owner = _private_owner(node.module, [alias.name for alias in node.names])
+        if owner is not None and not own.startswith(owner + "."):
+            wrong.append(f"line {node.lineno}: reaches into {owner}'s private part ({node.module})")
+    return wrong
+
+
+@pytest.mark.parametrize("path", _modules(), ids=lambda p: str(p.relative_to(PACKAGE)))
+def test_no_module_reaches_into_another_packages_private_part(path):
+    wrong = _private_reaches(path)
+    assert not wrong, "\n".join(wrong)
+
+
+def test_the_private_rule_allows_own_package_and_catches_others(tmp_path):
+    probe = tmp_path / "core" / "pairs" / "probe.py"
+    probe.parent.mkdir(parents=True)
+    probe.write_text("from zeffir.core.pairs._one_matrix import _blocks\n"
+                     "from zeffir.core._errors import ModelError\n"
+                     "from zeffir.core.density._slices import quadrant_radii\n"
+                     "from zeffir.scene import _terms\n", encoding="utf-8")
+    wrong = _private_reaches(probe, tmp_path)
+    assert [w.split(":")[0] for w in wrong] == ["line 3", "line 4"]

@@ -5,7 +5,7 @@ from __future__ import annotations
 import json
 from dataclasses import dataclass
 
-from zeffir.core._resources import resource_path
+from zeffir.core import resource_path
 
 __all__ = ["Demo", "load_demo"]
 

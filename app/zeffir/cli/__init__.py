@@ -85,8 +85,7 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the exit status (see ``zeffir --help``)."""
     from contextlib import nullcontext
 
-    from zeffir.core import ModelError, ZeffirError
-    from zeffir.core._cancel import progress_reporting
+    from zeffir.core import ModelError, ZeffirError, progress_reporting
 
     try:
         args = _parser().parse_args(argv)

@@ -57,19 +57,12 @@ def _open_text(configuration: Configuration) -> str:
     return " ".join(f"{sub.label}{configuration.occupancy(sub)}" for sub in configuration.open_subshells)
 
 
-_MULTIPLICITY_NAMES = ("singlets", "doublets", "triplets", "quartets", "quintets", "sextets",
-                       "septets", "octets", "nonets")
-
-
-def _half(value: float) -> str:
-    return f"{value:g}" if value == int(value) else f"{round(2 * value)}/2"
-
-
 def _format_terms(spec: str) -> str:
     from collections import Counter
 
     from zeffir.core import parse_spec
     from zeffir.core.terms import (
+        MULTIPLICITY_NAMES,
         configuration_parity,
         configuration_terms,
         ground_level,
@@ -77,6 +70,7 @@ def _format_terms(spec: str) -> str:
         microstate_count,
         observed_level,
     )
+    from zeffir.core.terms import quantum_number_text as _half
 
     configuration = parse_spec(spec)
     terms = configuration_terms(configuration)
@@ -102,7 +96,7 @@ def _format_terms(spec: str) -> str:
     for term in distinct:
         if term.multiplicity != group:
             group = term.multiplicity
-            title = (_MULTIPLICITY_NAMES[group - 1] if group <= len(_MULTIPLICITY_NAMES)
+            title = (MULTIPLICITY_NAMES[group - 1] + "s" if group <= len(MULTIPLICITY_NAMES)
                      else f"multiplicity {group}")
             lines.append(f"  {title} (S = {_half(term.S)})")
         levels = ", ".join(_half(j) for j in term.J)

@@ -7,6 +7,7 @@ Everything a script or notebook needs::
     orbitals.orbital("3s").z_eff          # 2.5074
 """
 
+from zeffir.core._cancel import cancellation, progress_reporting
 from zeffir.core._errors import (
     ComputationCancelled,
     ModelError,
@@ -14,6 +15,7 @@ from zeffir.core._errors import (
     SpecError,
     ZeffirError,
 )
+from zeffir.core._resources import resource_path
 from zeffir.core._units import (
     ANGSTROM_PER_BOHR,
     CODATA_EDITION,
@@ -80,6 +82,7 @@ __all__ = [
     "ZeffirError",
     "bohr_to_angstrom",
     "build",
+    "cancellation",
     "complex_harmonic",
     "cumulative_charge",
     "density_on_plane",
@@ -94,9 +97,11 @@ __all__ = [
     "orbital_density_on_plane",
     "orbital_on_plane",
     "parse_spec",
+    "progress_reporting",
     "radial_grid",
     "real_harmonic",
     "real_labels",
+    "resource_path",
     "solid_harmonic",
     "spherical_density",
     "subshell_distributions",

@@ -46,8 +46,8 @@ from zeffir.scene import (
     length_factor,
     length_symbol,
     unit_text,
+    values_label,
 )
-from zeffir.scene._profile import values_label
 
 __all__ = ["CAUTION", "DATA_FORMATS", "FORMAT_VERSION", "UNIT_TOKENS_NOTE", "unit_token",
            "unit_token_of_text", "version_note", "write_data"]

@@ -18,7 +18,7 @@ import numpy as np
 from zeffir.core import CODATA_EDITION
 from zeffir.export._atomic import write_atomic
 from zeffir.export._data import CAUTION, UNIT_TOKENS_NOTE, unit_token, unit_token_of_text, version_note
-from zeffir.scene._profile import LineProfile
+from zeffir.scene import LineProfile
 
 __all__ = ["PROFILE_COLUMNS", "PROFILE_SKIPROWS", "profile_column_names", "profile_csv_text",
            "write_profile_csv"]

@@ -32,7 +32,7 @@ from zeffir.scene._pairs import (
     pair_scenes,
     two_electron_scenes,
 )
-from zeffir.scene._profile import PROFILE_POINTS, LineProfile, line_profile
+from zeffir.scene._profile import PROFILE_POINTS, LineProfile, line_profile, values_label
 from zeffir.scene._quantities import QUANTITIES, Quantity, length_factor, length_symbol, unit_text
 from zeffir.scene._radial import Curve, Marker, RadialScene, radial_range, radial_scene
 from zeffir.scene._slice import (
@@ -47,6 +47,14 @@ from zeffir.scene._slice import (
     orbital_name,
     plane_of,
     slice_scene,
+)
+from zeffir.scene._terms import (
+    TermNote,
+    TermRow,
+    TermsSummary,
+    level_symbol,
+    term_symbol,
+    terms_summary,
 )
 from zeffir.scene._views import (
     FIGURE_VIEWS,
@@ -82,6 +90,9 @@ __all__ = [
     "RadialScene",
     "SliceComparison",
     "SliceScene",
+    "TermNote",
+    "TermRow",
+    "TermsSummary",
     "TwoElectronScenes",
     "ViewRecipe",
     "ViewScenes",
@@ -97,6 +108,7 @@ __all__ = [
     "forget_failure",
     "length_factor",
     "length_symbol",
+    "level_symbol",
     "line_profile",
     "manual_range",
     "model_title",
@@ -112,9 +124,12 @@ __all__ = [
     "sign_colours",
     "slice_scene",
     "subshell_colour",
+    "term_symbol",
+    "terms_summary",
     "trace_contours",
     "two_electron_scenes",
     "unit_text",
+    "values_label",
     "view_inputs",
     "view_scene",
     "with_fitted_extent",

@@ -23,6 +23,7 @@ from zeffir.core.terms import (
     ground_notes,
     microstate_count,
     observed_level,
+    quantum_number_text,
     term_label,
 )
 
@@ -37,14 +38,7 @@ __all__ = [
 
 _SUPERSCRIPT: Final = str.maketrans("0123456789", "⁰¹²³⁴⁵⁶⁷⁸⁹")
 _SUBSCRIPT: Final = str.maketrans("0123456789", "₀₁₂₃₄₅₆₇₈₉")
-_MULTIPLICITY_NAMES: Final[tuple[str, ...]] = (
-    "singlet", "doublet", "triplet", "quartet", "quintet", "sextet", "septet", "octet", "nonet")
-
-
-def _half(value: float) -> str:
-    """A whole or half-whole number as the trade writes it: ``'2'``, ``'3/2'``."""
-    twice = round(2 * value)
-    return str(twice // 2) if twice % 2 == 0 else f"{twice}/2"
+_half = quantum_number_text
 
 
 def _letter(S: float, L: int) -> str:

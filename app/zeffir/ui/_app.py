@@ -11,7 +11,7 @@ __all__ = ["demo_state", "run_window"]
 
 def demo_state() -> object:
     """The built-in demo session (resources/demo/sodium-valence.zeffir)."""
-    from zeffir.core._resources import resource_path
+    from zeffir.core import resource_path
     from zeffir.export import load_session
 
     with __import__("importlib").resources.as_file(

@@ -24,9 +24,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.export._errors import ExportError
-from zeffir.export._profile_data import profile_csv_text, write_profile_csv
-from zeffir.scene._profile import LineProfile
+from zeffir.export import ExportError, profile_csv_text, write_profile_csv
+from zeffir.scene import LineProfile
 from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     MUTED_TEXT,

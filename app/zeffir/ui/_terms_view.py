@@ -27,12 +27,11 @@ from PySide6.QtWidgets import (
 )
 
 from zeffir.core import ZeffirError
-from zeffir.scene._terms import (
-    _MULTIPLICITY_NAMES,
+from zeffir.core.terms import MULTIPLICITY_NAMES, quantum_number_text
+from zeffir.scene import (
     TermNote,
     TermRow,
     TermsSummary,
-    _half,
     level_symbol,
     term_symbol,
     terms_summary,
@@ -229,9 +228,9 @@ class TermsView(QWidget):
         for r, row in enumerate(rows):
             if row.term.multiplicity != group:
                 group, shade = row.term.multiplicity, 1 - shade
-            name = (_MULTIPLICITY_NAMES[group - 1] if group <= len(_MULTIPLICITY_NAMES)
+            name = (MULTIPLICITY_NAMES[group - 1] if group <= len(MULTIPLICITY_NAMES)
                     else f"multiplicity {group}")
-            tip = f"{name}, S = {_half(row.term.S)}, L = {row.term.L} ({row.term.display})"
+            tip = f"{name}, S = {quantum_number_text(row.term.S)}, L = {row.term.L} ({row.term.display})"
             for c, text in enumerate(row.cells()):
                 item = QTableWidgetItem(text)
                 numeric = COLUMNS[c][0] in ("Count", "S", "L", "States")

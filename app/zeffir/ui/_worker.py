@@ -39,7 +39,7 @@ class _Runner(QObject):
         if job is None:
             return
         ident, key, function = job
-        from zeffir.core._cancel import cancellation, progress_reporting
+        from zeffir.core import cancellation, progress_reporting
 
         try:
             # Long core loops poll this: a superseded or cancelled request stops early,

@@ -21,6 +21,12 @@ import numpy.typing as npt
 from zeffir.core._errors import QuantumNumberError
 from zeffir.core.density._kernels import compiled_density, compiled_orbital
 from zeffir.core.density._plane import Plane
+from zeffir.core.density._plane_grid import (
+    fill_mirrored,
+    multiply_mirrored,
+    polynomial_product,
+    quadrant_radii,
+)
 from zeffir.core.density._radial_curves import spherical_density
 from zeffir.core.density._radial_table import RadialTable, tabulate
 from zeffir.core.orbitals import (
@@ -28,6 +34,7 @@ from zeffir.core.orbitals import (
     OrbitalSet,
     SlaterRadial,
     SubshellOrbital,
+    complex_from_real,
     solid_harmonic,
     solid_harmonic_monomials,
 )
@@ -69,21 +76,12 @@ def plane_polynomial(l: int, m: int, plane: Plane) -> FloatArray:
     for k in range(3):
         table = [np.ones((1, 1))]
         for _ in range(l):
-            table.append(_polymul2(table[-1], linear[k]))
+            table.append(polynomial_product(table[-1], linear[k]))
         powers.append(table)
     for (a, b, c), coeff in solid_harmonic_monomials(l, m):
-        term = _polymul2(_polymul2(powers[0][a], powers[1][b]), powers[2][c])
+        term = polynomial_product(polynomial_product(powers[0][a], powers[1][b]), powers[2][c])
         out[: term.shape[0], : term.shape[1]] += coeff * term
     out.flags.writeable = False
-    return out
-
-
-def _polymul2(p: FloatArray, q: FloatArray) -> FloatArray:
-    out = np.zeros((p.shape[0] + q.shape[0] - 1, p.shape[1] + q.shape[1] - 1))
-    for i in range(q.shape[0]):
-        for j in range(q.shape[1]):
-            if q[i, j]:
-                out[i : i + p.shape[0], j : j + p.shape[1]] += q[i, j] * p
     return out
 
 
@@ -93,37 +91,6 @@ def _angular_grid(l: int, m: int, plane: Plane) -> FloatArray:
     vander = np.vander(c, l + 1, increasing=True)  # [i, a] = c_i^a
     # A[j, i] = Σ_ab C[a, b] u_i^a v_j^b
     return np.asarray(vander @ coeffs.T @ vander.T, dtype=float)
-
-
-def _quadrant_radii(plane: Plane) -> FloatArray:
-    c = plane.coordinates()
-    half = c[plane.resolution // 2 :]
-    sq = half * half
-    return np.sqrt(plane.offset**2 + sq[:, None] + sq[None, :])
-
-
-def _mirror_blocks(k: int, quadrant: FloatArray) -> list[tuple[tuple[slice, slice], FloatArray]]:
-    h = k // 2
-    flipped_rows = quadrant[::-1][:h]
-    return [
-        ((slice(h, k), slice(h, k)), quadrant),
-        ((slice(h, k), slice(0, h)), quadrant[:, ::-1][:, :h]),
-        ((slice(0, h), slice(h, k)), flipped_rows),
-        ((slice(0, h), slice(0, h)), flipped_rows[:, ::-1][:, :h]),
-    ]
-
-
-def _multiply_mirrored(out: FloatArray, quadrant: FloatArray) -> FloatArray:
-    for index, block in _mirror_blocks(out.shape[0], quadrant):
-        out[index] *= block
-    return out
-
-
-def _fill_mirrored(k: int, quadrant: FloatArray) -> FloatArray:
-    out = np.empty((k, k))
-    for index, block in _mirror_blocks(k, quadrant):
-        out[index] = block
-    return out
 
 
 def orbital_on_plane(
@@ -160,11 +127,8 @@ def orbital_on_plane(
     if kind == "complex":
         if m == 0:
             return orbital_on_plane(orbital, plane, 0, "real").astype(complex)
-        re = orbital_on_plane(orbital, plane, abs(m), "real")
-        im = orbital_on_plane(orbital, plane, -abs(m), "real")
-        phase = (-1) ** abs(m) if m > 0 else 1
-        sign = 1 if m > 0 else -1
-        return np.asarray(phase * (re + sign * 1j * im) / np.sqrt(2.0), dtype=complex)
+        return complex_from_real(m, orbital_on_plane(orbital, plane, abs(m), "real"),
+                                 orbital_on_plane(orbital, plane, -abs(m), "real"))
     if kind != "real":
         raise QuantumNumberError(f"{kind}: kind must be 'real' or 'complex'")
     if plane.resolution >= _COMPILED_FROM:
@@ -204,8 +168,8 @@ def orbital_on_plane_numpy(orbital: SubshellOrbital, plane: Plane, m: int = 0) -
     """The plain-numpy fast path of :func:`orbital_on_plane` for a real orbital."""
     _check_m(orbital, m)
     out = _angular_grid(orbital.l, m, plane)
-    radial = orbital.radial.over_r_l(_quadrant_radii(plane))
-    return _multiply_mirrored(out, radial)
+    radial = orbital.radial.over_r_l(quadrant_radii(plane))
+    return multiply_mirrored(out, radial)
 
 
 def orbital_on_plane_direct(
@@ -252,7 +216,7 @@ def density_on_plane_numpy(orbitals: OrbitalSet, plane: Plane) -> FloatArray:
     quadrant = np.empty((sq.size, sq.size))
     quadrant[rows, cols] = values
     quadrant[cols, rows] = values
-    return _fill_mirrored(plane.resolution, quadrant)
+    return fill_mirrored(plane.resolution, quadrant)
 
 
 def density_on_plane_direct(orbitals: OrbitalSet, plane: Plane) -> FloatArray:

@@ -2,6 +2,7 @@
 
 from zeffir.core.orbitals._angular import (
     Monomials,
+    complex_from_real,
     complex_harmonic,
     real_harmonic,
     real_label,
@@ -25,6 +26,7 @@ __all__ = [
     "SlaterRadial",
     "SubshellOrbital",
     "TabulatedRadial",
+    "complex_from_real",
     "complex_harmonic",
     "laguerre",
     "log_grid",

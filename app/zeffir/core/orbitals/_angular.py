@@ -21,6 +21,7 @@ from zeffir.core.orbitals._radial import FloatArray
 
 __all__ = [
     "Monomials",
+    "complex_from_real",
     "complex_harmonic",
     "real_harmonic",
     "real_label",
@@ -107,6 +108,57 @@ def complex_harmonic(l: int, m: int, theta: npt.ArrayLike, phi: npt.ArrayLike) -
     """
     _check(l, m)
     return np.asarray(special.sph_harm_y(l, m, theta, phi), dtype=complex)
+
+
+def complex_from_real(m: int, cosine: npt.ArrayLike, sine: npt.ArrayLike | None = None
+                      ) -> npt.NDArray[np.complex128]:
+    """Combine the real harmonics of order ±|m| into the complex one of order m.
+
+    Works on anything linear in the harmonics: values on points or on a grid, or
+    coefficient arrays of the polynomials r^l Y_lm.
+
+    Parameters
+    ----------
+    m : int
+        Order of the complex harmonic.
+    cosine : array_like
+        The real harmonic of order +|m| (the cos |m|φ one).
+    sine : array_like, optional
+        The real harmonic of order −|m| (the sin |m|φ one); not used, and may be
+        omitted, when m = 0.
+
+    Returns
+    -------
+    ndarray of complex
+        Y_l^m = (−1)^m (S_l|m| + i S_l,−|m|)/√2 for m > 0,
+        (S_l|m| − i S_l,−|m|)/√2 for m < 0, and S_l0 for m = 0.
+
+    References
+    ----------
+    E. U. Condon and G. H. Shortley, *The Theory of Atomic Spectra* (1935), the phase
+    convention; DLMF §14.30 (the relation between real and complex harmonics).
+
+    Examples
+    --------
+    The combination reproduces scipy's complex harmonics with the Condon–Shortley
+    phase, for both signs of m:
+
+    >>> import numpy as np
+    >>> theta, phi = 0.7, 1.9
+    >>> all(bool(np.isclose(complex_from_real(m, real_harmonic(2, abs(m), theta, phi),
+    ...                                       real_harmonic(2, -abs(m), theta, phi)),
+    ...                     complex_harmonic(2, m, theta, phi))) for m in (-2, -1, 1, 2))
+    True
+    """
+    if m == 0:
+        return np.asarray(cosine, dtype=complex)
+    if sine is None:
+        raise QuantumNumberError(f"m = {m}: the real harmonic of order -|m| is needed")
+    re = np.asarray(cosine)
+    im = np.asarray(sine)
+    if m > 0:
+        return np.asarray((-1) ** m * (re + 1j * im) / math.sqrt(2.0), dtype=complex)
+    return np.asarray((re - 1j * im) / math.sqrt(2.0), dtype=complex)
 
 
 @cache

@@ -22,10 +22,16 @@ import numpy as np
 import numpy.typing as npt
 
 from zeffir.core._errors import QuantumNumberError
-from zeffir.core.density import Plane, plane_polynomial
-from zeffir.core.density._slices import _mirror_blocks
-from zeffir.core.density._slices import _quadrant_radii as _radii_of_quadrant
-from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction
+from zeffir.core.density import (
+    Plane,
+    fill_mirrored,
+    multiply_mirrored,
+    plane_polynomial,
+    polynomial_on_grid,
+    polynomial_product,
+    quadrant_radii,
+)
+from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, complex_from_real
 from zeffir.core.pairs._determinant import UP, Determinant
 from zeffir.core.pairs._kernels import compiled_modulus_squared
 from zeffir.core.pairs._one_matrix import (
@@ -60,43 +66,9 @@ _Grid = npt.NDArray[Any]
 @lru_cache(maxsize=8)
 def _quadrant_radii(plane: Plane) -> FloatArray:
     """|r| on the non-negative quadrant of the grid (cached per plane, read-only)."""
-    radii = _radii_of_quadrant(plane)
+    radii = quadrant_radii(plane)
     radii.flags.writeable = False
     return radii
-
-
-def _mirror(plane: Plane, quadrant: FloatArray) -> FloatArray:
-    """The full grid of a radial quantity given on the non-negative quadrant."""
-    out = np.empty((plane.resolution, plane.resolution))
-    for index, block in _mirror_blocks(plane.resolution, quadrant):
-        out[index] = block
-    return out
-
-
-def _multiply_mirrored(out: _Grid, quadrant: FloatArray) -> None:
-    for index, block in _mirror_blocks(out.shape[0], quadrant):
-        out[index] *= block
-
-
-def _polynomial_on_grid(plane: Plane, coefficients: _Grid) -> _Grid:
-    """Σ_ab C[a, b] u_i^a v_j^b at every grid point as ``out[j, i]`` (Horner's rule in u)."""
-    c = plane.coordinates()
-    order = coefficients.shape[0]
-    rows = coefficients @ np.vander(c, order, increasing=True).T  # rows[a, j] = p_a(v_j)
-    out = np.repeat(rows[order - 1][:, None], c.size, axis=1)
-    for a in range(order - 2, -1, -1):
-        out *= c[None, :]
-        out += rows[a][:, None]
-    return out
-
-
-def _polynomial_product(p: FloatArray, q: FloatArray) -> FloatArray:
-    """Coefficients of the product of two polynomials in (u, v) (a full 2-D convolution)."""
-    out = np.zeros((p.shape[0] + q.shape[0] - 1, p.shape[1] + q.shape[1] - 1))
-    for (a, b), value in np.ndenumerate(q):
-        if value:
-            out[a : a + p.shape[0], b : b + p.shape[1]] += value * p
-    return out
 
 
 @lru_cache(maxsize=8)
@@ -123,8 +95,8 @@ def _legendre_polynomial(l: int, plane: Plane, direction: FloatArray) -> FloatAr
         return previous
     current = s
     for k in range(2, l + 1):
-        term = (2 * k - 1) * _polynomial_product(s, current)
-        term -= (k - 1) * _polynomial_product(q, previous)
+        term = (2 * k - 1) * polynomial_product(s, current)
+        term -= (k - 1) * polynomial_product(q, previous)
         previous, current = current, term / k
     return np.asarray(current[: l + 1, : l + 1], dtype=float)
 
@@ -132,12 +104,8 @@ def _legendre_polynomial(l: int, plane: Plane, direction: FloatArray) -> FloatAr
 def _complex_plane_polynomial(l: int, m: int, plane: Plane) -> ComplexArray:
     """Coefficients in (u, v) of the complex solid harmonic r^l Y_l^m on the plane."""
     if m == 0:
-        return np.asarray(plane_polynomial(l, 0, plane), dtype=complex)
-    re = plane_polynomial(l, abs(m), plane)
-    im = plane_polynomial(l, -abs(m), plane)
-    if m > 0:
-        return np.asarray((-1) ** m * (re + 1j * im) / math.sqrt(2.0), dtype=complex)
-    return np.asarray((re - 1j * im) / math.sqrt(2.0), dtype=complex)
+        return complex_from_real(0, plane_polynomial(l, 0, plane))
+    return complex_from_real(m, plane_polynomial(l, abs(m), plane), plane_polynomial(l, -abs(m), plane))
 
 
 # --- one-matrix and densities on the plane ----------------------------------------------
@@ -203,9 +171,9 @@ def _density_parts(blocks: list[_Block], at_r2: _RadialCache,
                          for i in range(size) for j in range(size)), np.zeros_like(at_r2.r))
         angular = np.zeros((plane.resolution, plane.resolution))
         for m in block.ms:
-            y = _polynomial_on_grid(plane, _complex_plane_polynomial(block.l, m, plane))
+            y = polynomial_on_grid(plane, _complex_plane_polynomial(block.l, m, plane))
             angular += y.real**2 + y.imag**2
-        _multiply_mirrored(angular, quadratic)
+        multiply_mirrored(angular, quadratic)
         rest = angular if rest is None else rest + angular
     return spherical, rest
 
@@ -214,7 +182,7 @@ def _modulus_squared(plane: Plane, data: _PlaneData, terms: list[_Term], alpha: 
                      density: FloatArray, beta: float) -> FloatArray:
     """α |Σ_t P_t g_t|² + β d on the grid: compiled when numba is there, numpy otherwise."""
     if not terms:
-        return beta * _mirror(plane, density)
+        return beta * fill_mirrored(plane.resolution, density)
     order = max(poly.shape[0] for poly, _ in terms)
     coefficients = np.zeros((len(terms), order, order), dtype=complex)
     radial = np.empty((len(terms), *data.stack.shape[1:]))
@@ -244,12 +212,12 @@ def _modulus_squared_numpy(plane: Plane, terms: list[_Term], radial: FloatArray,
     real = all(not np.any(poly.imag) for poly, _ in terms)
     gamma: _Grid = np.zeros((plane.resolution, plane.resolution), dtype=float if real else complex)
     for (poly, _), factor in zip(terms, radial, strict=True):
-        angular = _polynomial_on_grid(plane, poly.real if real else poly)
-        _multiply_mirrored(angular, factor)
+        angular = polynomial_on_grid(plane, poly.real if real else poly)
+        multiply_mirrored(angular, factor)
         gamma += angular
     out = np.asarray(alpha * (gamma.real**2 + gamma.imag**2), dtype=float)
     if beta:
-        out += beta * _mirror(plane, density)
+        out += beta * fill_mirrored(plane.resolution, density)
     return out
 
 
@@ -344,7 +312,7 @@ def spin_density_on_plane(
     if spin is not None:
         _check_spin(spin)
     spherical, rest = _density(orbitals, plane, determinant, spin)
-    out = _mirror(plane, spherical)
+    out = fill_mirrored(plane.resolution, spherical)
     if rest is not None:
         out += rest
     return out

@@ -42,6 +42,7 @@ from zeffir.core.orbitals import (
     OrbitalSet,
     RadialFunction,
     SlaterRadial,
+    complex_from_real,
     solid_harmonic,
 )
 from zeffir.core.pairs._determinant import DOWN, UP, Determinant, DeterminantError, hund_determinant
@@ -247,12 +248,8 @@ def complex_solid_harmonic(
     True
     """
     if m == 0:
-        return np.asarray(solid_harmonic(l, 0, x, y, z), dtype=complex)
-    re = solid_harmonic(l, abs(m), x, y, z)
-    im = solid_harmonic(l, -abs(m), x, y, z)
-    if m > 0:
-        return np.asarray((-1) ** m * (re + 1j * im) / math.sqrt(2.0), dtype=complex)
-    return np.asarray((re - 1j * im) / math.sqrt(2.0), dtype=complex)
+        return complex_from_real(0, solid_harmonic(l, 0, x, y, z))
+    return complex_from_real(m, solid_harmonic(l, abs(m), x, y, z), solid_harmonic(l, -abs(m), x, y, z))
 
 
 # --- point evaluators -------------------------------------------------------------------

@@ -5,7 +5,14 @@
     ground_level("Fe").label                       # '5D4'
 """
 
-from zeffir.core.terms._labels import L_SYMBOLS, Parity, term_label
+from zeffir.core.terms._labels import (
+    L_SYMBOLS,
+    MULTIPLICITY_NAMES,
+    Parity,
+    half_integer_text,
+    quantum_number_text,
+    term_label,
+)
 from zeffir.core.terms._microstates import MAX_TERMS, TermError
 from zeffir.core.terms._notes import (
     OBSERVED_SOURCE,
@@ -27,6 +34,7 @@ from zeffir.core.terms._terms import (
 __all__ = [
     "L_SYMBOLS",
     "MAX_TERMS",
+    "MULTIPLICITY_NAMES",
     "OBSERVED_SOURCE",
     "Level",
     "ObservedLevel",
@@ -37,9 +45,11 @@ __all__ = [
     "configuration_terms",
     "ground_level",
     "ground_notes",
+    "half_integer_text",
     "known_hund_miss",
     "microstate_count",
     "observed_level",
     "open_shells",
+    "quantum_number_text",
     "term_label",
 ]

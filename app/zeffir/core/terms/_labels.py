@@ -7,7 +7,8 @@ from typing import Final, Literal
 
 from zeffir.core._errors import QuantumNumberError
 
-__all__ = ["L_SYMBOLS", "Parity", "half_integer_text", "term_label"]
+__all__ = ["L_SYMBOLS", "MULTIPLICITY_NAMES", "Parity", "half_integer_text", "quantum_number_text",
+           "term_label"]
 
 #: Parity of a configuration and of all its terms and levels.
 Parity = Literal["even", "odd"]
@@ -15,6 +16,11 @@ Parity = Literal["even", "odd"]
 #: Letters for L = 0..16. After S P D F G H I the sequence runs on alphabetically,
 #: skipping J and the letters already used (P, S).
 L_SYMBOLS: Final[str] = "SPDFGHIKLMNOQRTUV"
+
+#: Names of the multiplicities 2S + 1 = 1..9 (Condon & Shortley, The Theory of Atomic
+#: Spectra, 1935, ch. VII); beyond nine the trade writes the number.
+MULTIPLICITY_NAMES: Final[tuple[str, ...]] = (
+    "singlet", "doublet", "triplet", "quartet", "quintet", "sextet", "septet", "octet", "nonet")
 
 #: Mark placed after the L letter of an odd term (the trade writes a superscript o).
 ODD_MARK: Final[str] = "°"
@@ -39,6 +45,31 @@ def half_integer_text(two_x: int) -> str:
     ('2', '3/2')
     """
     return str(two_x // 2) if two_x % 2 == 0 else f"{two_x}/2"
+
+
+def quantum_number_text(value: float) -> str:
+    """Write a whole or half-whole quantum number (S, J, M) as the trade does.
+
+    Parameters
+    ----------
+    value : float
+        A multiple of 1/2; it is rounded to the nearest one.
+
+    Returns
+    -------
+    str
+        ``'2'``, ``'3/2'``, ``'0'``.
+
+    Examples
+    --------
+    Round-trips through :func:`half_integer_text` for every multiple of 1/2:
+
+    >>> all(quantum_number_text(k / 2) == half_integer_text(k) for k in range(20))
+    True
+    >>> quantum_number_text(2.5), quantum_number_text(4.0)
+    ('5/2', '4')
+    """
+    return half_integer_text(round(2 * value))
 
 
 def l_symbol(L: int) -> str:

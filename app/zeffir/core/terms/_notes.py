@@ -7,7 +7,7 @@ from functools import cache
 from typing import Final
 
 from zeffir.core.config import ION_SOURCE, Configuration, observed_ion, parse_spec
-from zeffir.core.terms._labels import Parity
+from zeffir.core.terms._labels import Parity, quantum_number_text
 from zeffir.core.terms._terms import Level, as_configuration, ground_level, open_shells
 
 __all__ = ["OBSERVED_SOURCE", "ObservedLevel", "ground_notes", "known_hund_miss",
@@ -150,14 +150,9 @@ def ground_notes(configuration: Configuration | str) -> tuple[str, ...]:
                      f"({observed.source})")
     elif observed.level is None and observed.J != hund.J:
         notes.append(f"Hund's rules miss here: the observed ground level is {observed.text} "
-                     f"({observed.source}), J = {_half(observed.J)} against "
-                     f"{_half(hund.J)}")
+                     f"({observed.source}), J = {quantum_number_text(observed.J)} against "
+                     f"{quantum_number_text(hund.J)}")
     elif observed.level is None:
         notes.append(f"NIST names the observed ground level {observed.text} in another "
-                     f"coupling; its J ({_half(observed.J)}) agrees with Hund's rules")
+                     f"coupling; its J ({quantum_number_text(observed.J)}) agrees with Hund's rules")
     return tuple(notes)
-
-
-def _half(value: float) -> str:
-    twice = round(2 * value)
-    return str(twice // 2) if twice % 2 == 0 else f"{twice}/2"
