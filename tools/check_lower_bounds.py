@@ -11,10 +11,10 @@ tools) into a fresh virtual environment. It builds Zeffir's wheel and installs t
 wheel without its dependencies, so pip cannot raise any pin, and it runs pytest from a
 temporary directory with the repository's pytest settings. The exit status is pytest's.
 
-It is not part of ``python -m pytest``: the environment of old releases costs about
-40 s to install from pip's cache and the core and reference tests about 100 s on two
-cores, which would push the suite past its time budget. Run it by hand or as a separate
-CI step whenever a dependency bound changes (DEVELOPERS.md).
+``python -m pytest`` runs it as one test (tests/test_lower_bounds_env.py): tests/conftest.py
+starts it in the background as soon as the tests are collected, on the core the suite
+leaves idle, and the test waits for its result. Run it by hand when you change a
+dependency bound (DEVELOPERS.md).
 """
 
 from __future__ import annotations
@@ -76,6 +76,33 @@ def _run(args: list[str | Path], cwd: Path) -> None:
     subprocess.run([str(a) for a in args], cwd=cwd, check=True)
 
 
+def _unpinned(python: Path, pins: list[str], cwd: Path) -> list[str]:
+    """The pins the environment does not honour, as ``name: installed X, pinned Y``.
+
+    Prints one ``installed: name==version`` line per pinned distribution.
+    """
+    listing = subprocess.run([str(python), "-m", "pip", "list", "--format=freeze"], cwd=cwd,
+                             capture_output=True, text=True, check=True).stdout
+    installed = {}
+    for line in listing.splitlines():
+        name, _, version = line.partition("==")
+        installed[name.lower().replace("_", "-")] = version
+    wrong = []
+    for pin in pins:
+        name, _, wanted = pin.partition("==")
+        have = installed.get(name.lower().replace("_", "-"))
+        print(f"installed: {name}=={have}", flush=True)
+        # "1.26" pins 1.26.0: compare release numbers padded with zeros.
+        if have is None or _release(have) != _release(wanted):
+            wrong.append(f"{name}: installed {have}, pinned {wanted}")
+    return wrong
+
+
+def _release(version: str) -> tuple[int, ...]:
+    numbers = [int(part) for part in re.findall(r"\d+", version.split("+")[0])[:4]]
+    return tuple(numbers + [0] * (4 - len(numbers)))
+
+
 def main(argv: list[str] | None = None) -> int:
     """Build the environment of lower bounds, run the tests there and return pytest's status."""
     parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
@@ -103,6 +130,10 @@ def main(argv: list[str] | None = None) -> int:
         wheel = max(wheels.glob("zeffir-*.whl"), key=lambda p: p.stat().st_mtime)
         _run([python, "-m", "pip", "install", "--quiet", "--no-deps", "--force-reinstall", wheel], base)
         _run([python, "-m", "pip", "check"], base)
+        wrong = _unpinned(python, pins, base)
+        if wrong:
+            print("not installed at the lower bound:", ", ".join(wrong), flush=True)
+            return 1
         print(f"environment ready in {time.perf_counter() - start:.0f} s", flush=True)
 
         tests = [ROOT / "tests"] if args.all else [ROOT / t for t in CORE_TESTS]
