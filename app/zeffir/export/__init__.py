@@ -5,10 +5,15 @@ the file's suffix. Sessions (``.zeffir``) store the view state as JSON.
 """
 
 from zeffir.export._atomic import atomic_file, atomic_path, write_atomic
-from zeffir.export._data import CAUTION, DATA_FORMATS, write_data
+from zeffir.export._data import CAUTION, DATA_FORMATS, FORMAT_VERSION, unit_token, write_data
 from zeffir.export._errors import ExportError, SessionError
 from zeffir.export._figures import DPI_RANGE, FIGURE_FORMATS, write_figure
-from zeffir.export._profile_data import PROFILE_SKIPROWS, profile_csv_text, write_profile_csv
+from zeffir.export._profile_data import (
+    PROFILE_SKIPROWS,
+    profile_column_names,
+    profile_csv_text,
+    write_profile_csv,
+)
 from zeffir.export._session import (
     MAX_NESTING,
     MAX_SESSION_BYTES,
@@ -28,6 +33,7 @@ __all__ = [
     "DPI_RANGE",
     "EXPORT_FORMATS",
     "FIGURE_FORMATS",
+    "FORMAT_VERSION",
     "MAX_NESTING",
     "MAX_SESSION_BYTES",
     "PROFILE_SKIPROWS",
@@ -40,8 +46,10 @@ __all__ = [
     "atomic_path",
     "export_view",
     "load_session",
+    "profile_column_names",
     "profile_csv_text",
     "save_session",
+    "unit_token",
     "view_target",
     "write_atomic",
     "write_data",
