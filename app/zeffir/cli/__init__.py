@@ -85,10 +85,16 @@ def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the exit status (see ``zeffir --help``)."""
     from contextlib import nullcontext
 
+    try:
+        # Before the core is imported: --version and --help answer in a blink.
+        args = _parser().parse_args(argv)
+    except KeyboardInterrupt:
+        print("zeffir: interrupted", file=sys.stderr)
+        return EXIT_INTERRUPTED
+
     from zeffir.core import ModelError, ZeffirError, progress_reporting
 
     try:
-        args = _parser().parse_args(argv)
         reporting = progress_reporting(_progress_line) if _wants_progress(args) else nullcontext()
         with reporting:
             return _run(args)

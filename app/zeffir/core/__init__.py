@@ -16,13 +16,7 @@ from zeffir.core._errors import (
     ZeffirError,
 )
 from zeffir.core._resources import resource_path
-from zeffir.core._units import (
-    ANGSTROM_PER_BOHR,
-    CODATA_EDITION,
-    EV_PER_HARTREE,
-    bohr_to_angstrom,
-    hartree_to_ev,
-)
+from zeffir.core._units import bohr_to_angstrom, hartree_to_ev
 from zeffir.core.config import (
     Configuration,
     Element,
@@ -108,3 +102,19 @@ __all__ = [
     "subshell_table",
     "total_distribution",
 ]
+
+#: CODATA constants, read from scipy.constants on first use (see ``zeffir.core._units``).
+ANGSTROM_PER_BOHR: float
+EV_PER_HARTREE: float
+CODATA_EDITION: str
+
+
+def __getattr__(name: str) -> object:
+    """The CODATA constants, read from scipy.constants on first use (PEP 562)."""
+    if name in ("ANGSTROM_PER_BOHR", "EV_PER_HARTREE", "CODATA_EDITION"):
+        from zeffir.core import _units
+
+        value = getattr(_units, name)
+        globals()[name] = value
+        return value
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")

@@ -31,8 +31,8 @@ from typing import Any, Final
 
 import numpy as np
 
+import zeffir.core
 from zeffir import __version__
-from zeffir.core import CODATA_EDITION
 from zeffir.export._atomic import atomic_file, write_atomic
 from zeffir.export._errors import ExportError
 from zeffir.scene import (
@@ -271,7 +271,7 @@ def _radial_csv(target: RadialScene | RadialComparison) -> str:
         f"quantity: {quantity.key}, {quantity.name}; {quantity.formula}",
         f"units: r in {length_symbol(unit)}; every other column in {y_unit}",
         UNIT_TOKENS_NOTE,
-        f"constants: {CODATA_EDITION} (via scipy.constants)",
+        f"constants: {zeffir.core.CODATA_EDITION} (via scipy.constants)",
         f"caution: {CAUTION}",
         "read with numpy.genfromtxt(path, delimiter=',', names=True, comments='#') "
         "or pandas.read_csv(path, comment='#')",
@@ -413,7 +413,7 @@ def _slice_arrays(target: SliceTarget) -> dict[str, Any]:
         "kind": _SLICE_KINDS[type(target)],
         "format_version": FORMAT_VERSION,
         "zeffir_version": __version__,
-        "constants": f"{CODATA_EDITION} (via scipy.constants)",
+        "constants": f"{zeffir.core.CODATA_EDITION} (via scipy.constants)",
         "caution": CAUTION,
         "length_unit": length,
         "layout": "values[j, i] is at (u[i], v[j]); v = u; "

@@ -15,7 +15,7 @@ from typing import Final
 
 import numpy as np
 
-from zeffir.core import CODATA_EDITION
+import zeffir.core
 from zeffir.export._atomic import write_atomic
 from zeffir.export._data import CAUTION, UNIT_TOKENS_NOTE, unit_token, unit_token_of_text, version_note
 from zeffir.scene import LineProfile
@@ -89,7 +89,7 @@ def _notes(profile: LineProfile) -> list[str]:
         f"units: s, u, v in {unit}; value in {value_unit or 'the units of ' + symbol}",
         UNIT_TOKENS_NOTE,
         "sampling: bilinear interpolation of the slice grid; nan where the segment leaves the slice",
-        f"constants: {CODATA_EDITION} (via scipy.constants)",
+        f"constants: {zeffir.core.CODATA_EDITION} (via scipy.constants)",
         f"caution: {CAUTION}",
         "read with numpy.genfromtxt(path, delimiter=',', names=True, comments='#') "
         "or pandas.read_csv(path, comment='#')",

@@ -5,7 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Final
 
-from zeffir.core import ANGSTROM_PER_BOHR
+import zeffir.core
 
 __all__ = ["QUANTITIES", "Quantity", "length_factor", "length_symbol"]
 
@@ -54,7 +54,7 @@ QUANTITIES: Final[dict[str, Quantity]] = {
 
 def length_factor(unit: str, power: float) -> float:
     """Factor converting a quantity carrying length^power from atomic units to ``unit``."""
-    return 1.0 if unit == "bohr" else ANGSTROM_PER_BOHR**power
+    return 1.0 if unit == "bohr" else zeffir.core.ANGSTROM_PER_BOHR**power
 
 
 def length_symbol(unit: str) -> str:

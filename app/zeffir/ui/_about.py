@@ -6,9 +6,9 @@ import html
 
 from PySide6.QtWidgets import QMessageBox, QWidget
 
+import zeffir.core
 from zeffir import __version__
 from zeffir._references import CAUTIONS, REFERENCES
-from zeffir.core import CODATA_EDITION
 
 __all__ = ["about_html", "help_html", "show_about", "show_help"]
 
@@ -23,7 +23,7 @@ def about_html() -> str:
         "optimised orbitals of any configuration, side by side.</p>"
         f"<p><b>Model limits</b></p><ul>{cautions}</ul>"
         f"<p><b>Sources</b></p><ul>{references}</ul>"
-        f"<p>Units: atomic inside; Å and eV from {html.escape(CODATA_EDITION)}.</p>"
+        f"<p>Units: atomic inside; Å and eV from {html.escape(zeffir.core.CODATA_EDITION)}.</p>"
     )
 
 

@@ -19,7 +19,8 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from zeffir.core import ANGSTROM_PER_BOHR, ZeffirError, parse_spec
+import zeffir.core
+from zeffir.core import ZeffirError, parse_spec
 from zeffir.scene import QUANTITIES, SliceScene
 from zeffir.state import MAX_VIEW_RESOLUTION, ColourSettings, CompareSettings, ViewState
 from zeffir.ui._atom_bar import SourceFields
@@ -342,7 +343,7 @@ class ViewControls(QWidget):
 
     def _show_length_unit(self, unit: str) -> None:
         """Lengths in the chosen unit: the state keeps bohr, the boxes show bohr or Å."""
-        scale = ANGSTROM_PER_BOHR if unit == "angstrom" else 1.0
+        scale = zeffir.core.ANGSTROM_PER_BOHR if unit == "angstrom" else 1.0
         suffix = " Å" if unit == "angstrom" else " bohr"
         self._length_scale = scale
         for spin, (low, high) in ((self.offset, _OFFSET_RANGE), (self.extent, _EXTENT_RANGE),

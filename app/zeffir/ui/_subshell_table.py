@@ -8,7 +8,8 @@ from PySide6.QtCore import Qt, Signal
 from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTableWidgetItem, QWidget
 
-from zeffir.core import ANGSTROM_PER_BOHR, EV_PER_HARTREE, SubshellSummary
+import zeffir.core
+from zeffir.core import SubshellSummary
 
 __all__ = ["COLUMNS", "SubshellTable"]
 
@@ -99,8 +100,8 @@ class SubshellTable(QTableWidget):
         self.setColumnHidden(SERIES_COLUMN, len(series) < 2)
         self._rows = rows
         angstrom = length_unit == "angstrom"
-        length = ANGSTROM_PER_BOHR if angstrom else 1.0
-        energy = EV_PER_HARTREE if angstrom else 1.0
+        length = zeffir.core.ANGSTROM_PER_BOHR if angstrom else 1.0
+        energy = zeffir.core.EV_PER_HARTREE if angstrom else 1.0
         self._units = ("Å", "eV") if angstrom else ("bohr", "Eh")
         lu, eu = self._units
         headers = ["Subshell", "Electrons", f"ζ / {lu}⁻¹", "Z_eff", "n*", f"⟨r⟩ / {lu}",

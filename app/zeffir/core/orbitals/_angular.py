@@ -13,9 +13,9 @@ from typing import Final
 
 import numpy as np
 import numpy.typing as npt
-from scipy import special
 
 from zeffir.core._errors import QuantumNumberError
+from zeffir.core._scipy import special
 from zeffir.core.config import L_LETTERS, MAX_L
 from zeffir.core.orbitals._radial import FloatArray
 

@@ -6,9 +6,9 @@ from functools import cached_property
 
 import numpy as np
 import numpy.typing as npt
-from scipy import special
 
 from zeffir.core._errors import QuantumNumberError
+from zeffir.core._scipy import special
 from zeffir.core.config import MAX_N
 from zeffir.core.orbitals._radial import FloatArray, RadialFunction
 

@@ -4,9 +4,9 @@ from __future__ import annotations
 
 import numpy as np
 import numpy.typing as npt
-from scipy import special
 
 from zeffir.core._errors import QuantumNumberError
+from zeffir.core._scipy import special
 from zeffir.core.orbitals._radial import FloatArray, RadialFunction
 
 __all__ = ["SlaterRadial"]
