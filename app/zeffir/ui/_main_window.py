@@ -172,27 +172,38 @@ class _PanelGrid(QWidget):
         super().__init__()
         self._factory = factory
         self._setup = setup
-        # Two series panels and the difference panel from the start; further series
-        # panels are made when a comparison first asks for them.
+        # No panel yet: panels are made when the grid is first shown with a state
+        # (set_panels), further series and the difference panel when a comparison
+        # first asks for them. Each panel costs tens of milliseconds to build, which
+        # the window's first paint should not pay for views off screen.
         self.series_views: list[Any] = []
-        self.difference_view = factory()
+        self._difference: Any = None
         self._layout = QGridLayout(self)
         self._layout.setContentsMargins(0, 0, 0, 0)
         self._layout.setSpacing(2)
         self._shown: list[RadialView | SliceView] = []
         self._columns = 0
-        self._ensure_series(2)
-        first = self.series_views[0]
-        if factory is SliceView:
-            self.difference_view.link_axes(first)
-        else:  # radial differences are small: share r only, not the value axis
-            self.difference_view.link_axes(first, y=False)
-        self.set_panels(1, False)
+
+    @property
+    def difference_view(self) -> Any:
+        """The difference panel, made on first use (it shares its axes with the first series)."""
+        if self._difference is None:
+            self._ensure_series(1)
+            view = self._factory()
+            first = self.series_views[0]
+            if self._factory is SliceView:
+                view.link_axes(first)
+            else:  # radial differences are small: share r only, not the value axis
+                view.link_axes(first, y=False)
+            self._difference = view
+            if self._setup is not None:
+                self._setup(view)
+        return self._difference
 
     @property
     def all_views(self) -> list[Any]:
         """Every panel made so far (shown or not)."""
-        return [*self.series_views, self.difference_view]
+        return [*self.series_views, *([self._difference] if self._difference is not None else [])]
 
     def set_setup(self, setup: Callable[[Any], None]) -> None:
         """Call ``setup(view)`` for every panel made so far and for each one made later."""
@@ -268,6 +279,16 @@ class _PanelGrid(QWidget):
         super().resizeEvent(event)
         if self._shown:
             self._arrange()
+
+
+def _panel_counts(state: ViewState) -> tuple[int, bool]:
+    """Series panels and whether the difference panel shows, for the state's view."""
+    if state.view in ("pair", "two-electron"):
+        return 2, True  # same/opposite spin and the hole; singlet/triplet and their difference
+    series = len(state.series())
+    if state.view == "radial" and state.compare.overlay and series > 1:
+        series = 1
+    return series, state.compare.has_difference()
 
 
 class MainWindow(QMainWindow):
@@ -551,12 +572,11 @@ class MainWindow(QMainWindow):
         self.tabs.blockSignals(False)
         self.compare_action.setChecked(state.compare.enabled)
         self.unit_actions[state.length_unit].setChecked(True)
-        series = len(state.series())
-        difference = state.compare.has_difference()
-        self.radial_trio.set_panels(1 if state.compare.overlay and series > 1 else series, difference)
-        self.slice_trio.set_panels(series, difference)
-        self.pair_trio.set_panels(2, True)
-        self.two_trio.set_panels(2, True)
+        # Only the view on screen gets its panels now; a grid off screen is set when its
+        # tab is chosen (that is a state change too), so the window never builds panels
+        # nobody sees.
+        if state.view in self._trios:
+            self._trios[state.view].set_panels(*_panel_counts(state))
         name = self.session_path.name if self.session_path else "untitled"
         self.setWindowTitle(f"Zeffir — {state.left.spec} ({name})")
 
