@@ -45,3 +45,26 @@ def test_constants_still_come_from_scipy_on_first_use():
             "assert zeffir.core.EV_PER_HARTREE == constants.physical_constants['Hartree energy in eV'][0]\n"
             "assert zeffir.core.CODATA_EDITION.startswith('CODATA')")
     assert "scipy" in _loaded_after(code)
+
+
+def test_a_one_shot_figure_does_not_load_the_compiler(tmp_path):
+    # One picture is faster on the plain-numpy kernels than numba takes to load.
+    out = tmp_path / "xe.npz"
+    code = ("from zeffir.cli import main\n"
+            f"assert main(['figure', 'Xe', '--view', 'slice', '--resolution', '64', '--out', {str(out)!r}]) == 0")
+    assert "numba" not in _loaded_after(code)
+    assert out.exists()
+
+
+def test_compiled_option_loads_the_compiler_and_gives_the_same_values(tmp_path):
+    import numpy as np
+
+    plain, compiled = tmp_path / "plain.npz", tmp_path / "compiled.npz"
+    common = ["figure", "Fe", "--view", "slice", "--orbital", "3dxy", "--resolution", "256"]
+    code = ("from zeffir.cli import main\n"
+            f"assert main({[*common, '--out', str(compiled), '--compiled']!r}) == 0")
+    assert "numba" in _loaded_after(code)
+    code = f"from zeffir.cli import main\nassert main({[*common, '--out', str(plain)]!r}) == 0"
+    assert "numba" not in _loaded_after(code)
+    with np.load(plain) as a, np.load(compiled) as b:
+        assert np.allclose(a["values"], b["values"], rtol=1e-9, atol=1e-12 * np.abs(a["values"]).max())

@@ -131,6 +131,9 @@ def _add_figure_parser(commands: Any, default_model: str, models: Sequence[str],
                         "default double for comparisons, single otherwise")
     output.add_argument("--dpi", type=int, default=300,
                         help=f"PNG resolution, {DPI_RANGE[0]} to {DPI_RANGE[1]} (default 300)")
+    output.add_argument("--compiled", action="store_true",
+                        help="use the numba-compiled grid kernels; loading them costs 1-2 s, so a "
+                        "single figure is faster without (the default); the values are the same")
 
 
 def parse_orbital(label: str) -> OrbitalChoice:
@@ -358,8 +361,11 @@ def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewStat
 
 
 def _figure(args: argparse.Namespace) -> int:
+    from zeffir.core import set_compiled_kernels
     from zeffir.export import DPI_RANGE, export_view
 
+    # One picture: the plain-numpy kernels finish before numba would have loaded.
+    set_compiled_kernels(bool(args.compiled))
     if not DPI_RANGE[0] <= args.dpi <= DPI_RANGE[1]:
         raise _InputError(f"--dpi {args.dpi}: must be between {DPI_RANGE[0]} and {DPI_RANGE[1]}")
     state = figure_state(args)

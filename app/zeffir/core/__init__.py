@@ -7,6 +7,7 @@ Everything a script or notebook needs::
     orbitals.orbital("3s").z_eff          # 2.5074
 """
 
+from zeffir.core._acceleration import compiled_kernels_enabled, set_compiled_kernels
 from zeffir.core._cancel import cancellation, progress_reporting
 from zeffir.core._errors import (
     ComputationCancelled,
@@ -77,6 +78,7 @@ __all__ = [
     "bohr_to_angstrom",
     "build",
     "cancellation",
+    "compiled_kernels_enabled",
     "complex_harmonic",
     "cumulative_charge",
     "density_on_plane",
@@ -96,6 +98,7 @@ __all__ = [
     "real_harmonic",
     "real_labels",
     "resource_path",
+    "set_compiled_kernels",
     "solid_harmonic",
     "spherical_density",
     "subshell_distributions",

@@ -14,22 +14,25 @@ compiled code is cached on disk. The plain-numpy equivalents live in
 
 from __future__ import annotations
 
-import os
 from functools import cache
 from types import SimpleNamespace
 
 import numpy as np
 
+from zeffir.core._acceleration import compiled_kernels_enabled
 from zeffir.core.density._radial_table import RadialTable
 from zeffir.core.orbitals import FloatArray
 
 __all__ = ["compiled_density", "compiled_orbital", "kernels_available"]
 
 
-@cache
 def _kernels() -> SimpleNamespace | None:
-    if os.environ.get("ZEFFIR_NO_NUMBA"):
-        return None
+    """The compiled kernels, or None when they are switched off or numba is missing."""
+    return _loaded_kernels() if compiled_kernels_enabled() else None
+
+
+@cache
+def _loaded_kernels() -> SimpleNamespace | None:
     try:
         from zeffir.core.density import _compiled
     except ImportError:  # pragma: no cover - numba is a declared dependency
@@ -42,7 +45,7 @@ def _kernels() -> SimpleNamespace | None:
 
 
 def kernels_available() -> bool:
-    """True when the compiled kernels can be used (numba importable and not disabled)."""
+    """True when the compiled kernels are used (switched on and numba importable)."""
     return _kernels() is not None
 
 

@@ -19,13 +19,13 @@ tests compare with this one.
 from __future__ import annotations
 
 import importlib
-import os
 from functools import cache
 from types import ModuleType
 from typing import Any
 
 import numpy as np
 
+from zeffir.core._acceleration import compiled_kernels_enabled
 from zeffir.core.orbitals import FloatArray
 
 __all__ = ["compiled_modulus_squared"]
@@ -35,10 +35,13 @@ __all__ = ["compiled_modulus_squared"]
 _CHUNKS = 64
 
 
-@cache
 def _kernels() -> ModuleType | None:
-    if os.environ.get("ZEFFIR_NO_NUMBA"):
-        return None
+    """The compiled kernels, or None when they are switched off or numba is missing."""
+    return _loaded_kernels() if compiled_kernels_enabled() else None
+
+
+@cache
+def _loaded_kernels() -> ModuleType | None:
     try:
         return importlib.import_module("zeffir.core.pairs._compiled")
     except ImportError:  # pragma: no cover - numba is a declared dependency

@@ -1,0 +1,60 @@
+"""Whether the numba-compiled grid kernels are used, for the whole process.
+
+The compiled kernels (``core/density/_compiled.py``, ``core/pairs/_compiled.py``) make
+repeated pictures fast, but loading numba and its cached machine code costs 1–2 s,
+and the first run after installation compiles for about 10 s. A process that draws
+many pictures (the window, a script sweeping a parameter) gains; a one-shot command
+loses. The plain-numpy paths give the same values (the tests compare both), so the
+choice is one of speed only.
+
+They are on by default, off when the environment variable ``ZEFFIR_NO_NUMBA`` is set
+to a non-empty value. ``zeffir figure`` turns them off unless ``--compiled`` is given.
+"""
+
+from __future__ import annotations
+
+import os
+
+__all__ = ["compiled_kernels_enabled", "set_compiled_kernels"]
+
+_enabled: bool = not os.environ.get("ZEFFIR_NO_NUMBA")
+
+
+def compiled_kernels_enabled() -> bool:
+    """True when grid evaluations may use the numba-compiled kernels.
+
+    Returns
+    -------
+    bool
+        The process-wide choice (see the module notes).
+
+    Examples
+    --------
+    >>> before = set_compiled_kernels(False)
+    >>> compiled_kernels_enabled()
+    False
+    >>> set_compiled_kernels(before)
+    False
+    >>> compiled_kernels_enabled() == before
+    True
+    """
+    return _enabled
+
+
+def set_compiled_kernels(enabled: bool) -> bool:
+    """Use (True) or avoid (False) the compiled kernels from now on; return the previous choice.
+
+    Parameters
+    ----------
+    enabled : bool
+        False makes every grid evaluation take its plain-numpy path, and numba is
+        then never imported.
+
+    Returns
+    -------
+    bool
+        The choice in force before the call.
+    """
+    global _enabled
+    previous, _enabled = _enabled, bool(enabled)
+    return previous
