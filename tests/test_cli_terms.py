@@ -60,7 +60,8 @@ def test_closed_shell_gives_single_1s_term(capsys):
 def test_json_states_where_hunds_rules_miss(capsys):
     data = _json(capsys, "Ce")
     assert data["ground"]["label"] == "3H4" and data["ground"]["parity"] == "odd"
-    assert data["observed_ground"]["label"] == "1G4"  # NIST ASD, from memory
+    # Ce I: NIST ASD ground level 1G°4 (tests/reference/data/nist_neutral_ground_levels.csv).
+    assert data["observed_ground"]["label"] == "1G4"
     assert any("miss" in note for note in data["notes"])
 
 

@@ -50,8 +50,8 @@ def test_constants_still_come_from_scipy_on_first_use():
 def test_a_one_shot_figure_does_not_load_the_compiler(tmp_path):
     # One picture is faster on the plain-numpy kernels than numba takes to load.
     out = tmp_path / "xe.npz"
-    code = ("from zeffir.cli import main\n"
-            f"assert main(['figure', 'Xe', '--view', 'slice', '--resolution', '64', '--out', {str(out)!r}]) == 0")
+    argv = ["figure", "Xe", "--view", "slice", "--resolution", "64", "--out", str(out)]
+    code = f"from zeffir.cli import main\nassert main({argv!r}) == 0"
     assert "numba" not in _loaded_after(code)
     assert out.exists()
 

@@ -15,7 +15,10 @@ def test_slater_nitrogen_2p():
 @pytest.mark.parametrize(
     ("spec", "label", "z_eff"),
     [
-        # Worked examples of Slater's rules as usually quoted (common practice, from memory):
+        # Slater's rules (Slater, Phys. Rev. 36, 57 (1930)) evaluated by hand, the screening
+        # written out term by term: same group 0.35 (1s: 0.30); for an s or p electron 0.85
+        # per electron in shell n-1 and 1.00 further in; for a d electron 1.00 per electron
+        # in every group before its own.
         ("Zn", "3d", 30 - (9 * 0.35 + 18 * 1.00)),          # 8.85
         ("Zn", "4s", 30 - (0.35 + 18 * 0.85 + 10 * 1.00)),  # 4.35
         ("Fe", "4s", 26 - (0.35 + 14 * 0.85 + 10 * 1.00)),  # 3.75

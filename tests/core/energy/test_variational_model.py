@@ -8,10 +8,10 @@ from zeffir.core.energy import configuration_energy
 from zeffir.core.models._variational import (
     OptimisationCancelled,
     OptimisationError,
-    OrthogonalisedSlaterRadial,
     VariationalModel,
     optimise_exponents,
 )
+from zeffir.core.orbitals import SlaterExpansionRadial as OrthogonalisedSlaterRadial
 
 
 @pytest.fixture(scope="module")
@@ -93,8 +93,9 @@ def test_should_stop_cancels_with_the_last_state():
 
 
 def test_unbound_electron_raises_with_state():
-    # H⁻ 1s 2s ³S: the 2s electron of a triplet is not bound to H (H⁻ has no bound excited
-    # state, from memory), so its exponent runs to the lower bound: an error, never a result.
+    # H⁻ 1s 2s ³S: the 2s electron of a triplet is not bound to H (H⁻ has a single bound state
+    # of natural parity, its 1s² ¹S ground state: R. N. Hill, Phys. Rev. Lett. 38, 643 (1977)),
+    # so its exponent runs to the lower bound: an error, never a result.
     with pytest.raises(OptimisationError, match="2s ran to its bound") as caught:
         optimise_exponents(parse_spec("H- 1s1 2s1"))
     assert isinstance(caught.value, ModelError)

@@ -6,6 +6,7 @@ from fractions import Fraction
 
 import pytest
 import sympy
+from sympy.physics.wigner import gaunt as sympy_gaunt
 from sympy.physics.wigner import wigner_3j as sympy_3j
 
 from zeffir.core.energy import ck_coefficient, wigner_3j, wigner_3j_squared
@@ -51,7 +52,10 @@ def test_3j_rejects_non_integers():
 @pytest.mark.parametrize(
     ("k", "l1", "m1", "l2", "m2", "expected"),
     [
-        # Condon & Shortley 1935, Table 2⁶ (c^k for p-p and s-p), from memory:
+        # E. U. Condon and G. H. Shortley, The Theory of Atomic Spectra (1935), Table 1⁶
+        # (pp. 178–179), c^k for p-p and s-p, written there as ±√(a/D_k) with D_2(pp) = 25
+        # and D_1(sp) = 3; test_ck_matches_sympys_gaunt_coefficients checks each
+        # independently:
         (0, 1, 1, 1, 1, 1.0),
         (2, 1, 1, 1, 1, -1 / 5),
         (2, 1, 0, 1, 0, 2 / 5),
@@ -59,7 +63,7 @@ def test_3j_rejects_non_integers():
         (2, 1, 1, 1, -1, -math.sqrt(6) / 5),
         (1, 0, 0, 1, 1, -1 / math.sqrt(3)),
         (1, 0, 0, 1, 0, 1 / math.sqrt(3)),
-        # d-d (Condon & Shortley Table 2⁶, from memory): c²(2 2; 2 2) = -2/7, c⁴(2 2; 2 2) = 1/21.
+        # d-d (same table, D_2 = 49, D_4 = 441): c²(2 2; 2 2) = -2/7, c⁴(2 2; 2 2) = 1/21.
         (2, 2, 2, 2, 2, -2 / 7),
         (4, 2, 2, 2, 2, 1 / 21),
     ],
@@ -67,6 +71,23 @@ def test_3j_rejects_non_integers():
 def test_ck_coefficients_match_condon_shortley(k, l1, m1, l2, m2, expected):
     assert abs(ck_coefficient(k, l1, m1, l2, m2)) == pytest.approx(abs(expected), rel=1e-14)
     # Signs depend on the phase convention; the squares (what the energy uses) do not.
+
+
+def test_ck_matches_sympys_gaunt_coefficients():
+    # Cross-implementation: c^k(l1 m1; l2 m2) = √(4π/(2k+1)) ∫ Y*_{l1 m1} Y_{k, m1-m2} Y_{l2 m2} dΩ,
+    # and Y*_{l m} = (-1)^m Y_{l, -m}, so it is (-1)^m1 √(4π/(2k+1)) times sympy's exact
+    # gaunt(l1, k, l2, -m1, m1 - m2, m2) (Condon–Shortley phase in both). Signs included.
+    count = 0
+    for l1, l2 in itertools.product(range(4), repeat=2):
+        for k in range(l1 + l2 + 1):
+            for m1, m2 in itertools.product(range(-l1, l1 + 1), range(-l2, l2 + 1)):
+                if abs(m1 - m2) > k:
+                    continue
+                expected = (-1) ** m1 * math.sqrt(4 * math.pi / (2 * k + 1)) * float(
+                    sympy_gaunt(l1, k, l2, -m1, m1 - m2, m2))
+                assert ck_coefficient(k, l1, m1, l2, m2) == pytest.approx(expected, rel=1e-13, abs=1e-15)
+                count += 1
+    assert count > 800
 
 
 def test_ck_sum_rule_over_m2():

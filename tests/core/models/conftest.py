@@ -3,8 +3,7 @@
 import numpy as np
 import pytest
 
-from zeffir.core.models._hartree_fock import SlaterExpansionRadial
-from zeffir.core.orbitals import OrbitalSet, SubshellOrbital
+from zeffir.core.orbitals import OrbitalSet, SlaterExpansionRadial, SubshellOrbital
 
 
 def orbital_set(result, rotate=None):

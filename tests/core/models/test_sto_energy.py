@@ -47,10 +47,12 @@ def test_one_electron_matrices_match_quadrature(l, ns, zetas):
 
 def test_rk_matrix_matches_the_same_n_routine():
     # With every function of one n (here three 2p-type functions), R^k over all of
-    # them is the Hartree–Fock basis tensor of zeffir.core.models._hf_integrals.
+    # them is the Hartree–Fock basis tensor of zeffir.core.models._slater_integrals
+    # (the same R^k products, arranged by another route: distinct exponent sums there,
+    # unordered pairs here).
     from zeffir.core.config import Subshell
     from zeffir.core.energy import EnergyExpression
-    from zeffir.core.models._hf_integrals import rk_tensor
+    from zeffir.core.models._slater_integrals import rk_tensor
 
     subshells = (Subshell(2, 1), Subshell(3, 1), Subshell(4, 1))
     energy = StoEnergy(EnergyExpression(parse_spec("C"), {}, {}), subshells)

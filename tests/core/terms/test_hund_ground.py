@@ -5,7 +5,13 @@ import pytest
 
 from zeffir.core import parse_spec
 from zeffir.core.config import L_LETTERS
-from zeffir.core.terms import configuration_terms, ground_level, ground_notes, microstate_count
+from zeffir.core.terms import (
+    configuration_terms,
+    ground_level,
+    ground_notes,
+    microstate_count,
+    observed_level,
+)
 
 
 def config(*tokens: str):
@@ -13,22 +19,38 @@ def config(*tokens: str):
     return parse_spec(f"{electrons} {' '.join(tokens)}")
 
 
+# The 2p^k and 3d^k ions whose observed ground levels (NIST ASD, in the shipped table
+# resources/data/ion_ground_states.csv) are the free-ion levels of those subshells: the
+# closed 1s, 2s (and [Ar]) shells below them change nothing.
+P_SUBSHELL_IONS = {1: "C+", 2: "N+", 3: "O+", 4: "F+", 5: "Ne+", 6: "Na+"}
+D_SUBSHELL_IONS = {1: "Ti3+", 2: "V3+", 3: "Cr3+", 4: "Mn3+", 5: "Fe3+", 6: "Fe2+", 7: "Co2+",
+                   8: "Ni2+", 9: "Cu2+"}
+
+
 @pytest.mark.parametrize(("k", "label"), [
-    # Hund's rules for p^k, the textbook sequence (from memory; Hund 1927).
+    # Hund's rules for p^k (F. Hund, Linienspektren und periodisches System der Elemente,
+    # Springer, 1927), checked against NIST's ground levels of C II ... Na II.
     (1, "2P1/2"), (2, "3P0"), (3, "4S3/2"), (4, "3P2"), (5, "2P3/2"), (6, "1S0"),
 ])
 def test_p_subshell_follows_hunds_three_rules(k, label):
-    assert ground_level(config(f"2p{k}")).label == label
+    level = ground_level(config(f"2p{k}"))
+    assert level.label == label
+    ion = P_SUBSHELL_IONS[k]
+    assert parse_spec(ion).short_text == ("[Ne]" if k == 6 else f"[He] 2s2 2p{k}")
+    assert level.display == observed_level(ion).text
 
 
 @pytest.mark.parametrize(("k", "label"), [
-    # d^k ground levels from Hund's rules (from memory; they are the free-ion ground levels of
-    # the 3d^k ions in ligand-field tables).
+    # d^k ground levels from Hund's rules (Hund 1927), checked against NIST's ground levels
+    # of the 3d^k ions Ti IV ... Cu III.
     (1, "2D3/2"), (2, "3F2"), (3, "4F3/2"), (4, "5D0"), (5, "6S5/2"),
     (6, "5D4"), (7, "4F9/2"), (8, "3F4"), (9, "2D5/2"),
 ])
 def test_d_subshell_follows_hunds_three_rules(k, label):
     assert ground_level(config(f"3d{k}")).label == label
+    ion = D_SUBSHELL_IONS[k]
+    assert parse_spec(ion).short_text == f"[Ar] 3d{k}"
+    assert label == observed_level(ion).text
 
 
 def test_hund_term_is_the_first_listed_term_for_random_configurations():

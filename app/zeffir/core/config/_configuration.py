@@ -58,6 +58,18 @@ class Configuration:
         Typed by the user; the observed ground configuration (NIST ASD: every neutral
         atom, and the ions of charge +1 to +4 the shipped table lists); or derived from
         the neutral atom's by the rules of ``derived_ion_ground``.
+
+    Examples
+    --------
+    The occupied subshells hold the electrons the charge leaves, Z − charge, whether
+    the configuration is the ground one or typed:
+
+    >>> fe3 = parse_spec("Fe3+")
+    >>> fe3.n_electrons == fe3.Z - fe3.charge == 23
+    True
+    >>> excited = parse_spec("O2- [He] 2s2 2p5 3s1")
+    >>> excited.n_electrons == excited.Z - excited.charge, excited.explicit
+    (True, True)
     """
 
     element: Element
@@ -249,6 +261,12 @@ def derived_ion_ground(atom: Element, charge: int) -> tuple[tuple[Subshell, int]
     '[Rn] 5f2'
     >>> format_with_core(derived_ion_ground(element("V"), 1))
     '[Ar] 3d3 4s1'
+
+    Whatever the charge, the ion holds Z − charge electrons:
+
+    >>> all(sum(occ for _, occ in derived_ion_ground(element("Eu"), q)) == 63 - q
+    ...     for q in (-2, -1, 1, 2, 3, 4, 10))
+    True
     """
     occupation = dict(atom.ground)
     if charge > 0:

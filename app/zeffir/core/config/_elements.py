@@ -35,6 +35,15 @@ class Element:
         Ground configuration as written in the table, e.g. ``'[Ar] 3d5 4s1'``.
     ground : tuple of (Subshell, int)
         The same, expanded and ordered by (n, l).
+
+    Examples
+    --------
+    Chromium's observed ground configuration breaks the Madelung order (NIST ASD
+    ground levels); expanded, it holds Z electrons:
+
+    >>> cr = element("Cr")
+    >>> cr.ground_text, sum(occ for _, occ in cr.ground) == cr.Z
+    ('[Ar] 3d5 4s1', True)
     """
 
     Z: int
@@ -64,6 +73,16 @@ def elements() -> tuple[Element, ...]:
     -------
     tuple of Element
         Index ``Z - 1`` holds element Z.
+
+    Examples
+    --------
+    Every neutral atom's ground configuration holds Z electrons:
+
+    >>> table = elements()
+    >>> len(table), all(e.Z == i + 1 for i, e in enumerate(table))
+    (118, True)
+    >>> all(sum(occ for _, occ in e.ground) == e.Z for e in table)
+    True
     """
     known: dict[str, Element] = {}
     table: list[Element] = []

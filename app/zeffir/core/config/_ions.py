@@ -43,6 +43,19 @@ class IonGround:
         Total angular momentum of the level.
     parity : str
         ``'even'`` or ``'odd'``.
+
+    Examples
+    --------
+    Fe³⁺ (NIST ASD: [Ar] 3d⁵ ⁶S₅/₂) holds Z − charge electrons, and with L = 0 its
+    J equals S = (2S + 1 − 1)/2:
+
+    >>> fe3 = observed_ion(26, 3)
+    >>> fe3.configuration_text, fe3.level
+    ('[Ar] 3d5', '6S5/2')
+    >>> sum(occ for _, occ in fe3.occupations) == fe3.Z - fe3.charge
+    True
+    >>> fe3.L == 0 and fe3.J == (fe3.multiplicity - 1) / 2
+    True
     """
 
     Z: int
@@ -121,5 +134,18 @@ def observed_ion(Z: int, charge: int) -> IonGround | None:
 
 
 def observed_ions() -> tuple[IonGround, ...]:
-    """Every ion of the shipped table, ordered by Z and then charge."""
+    """Every ion of the shipped table, ordered by Z and then charge.
+
+    Examples
+    --------
+    Each ion holds Z − charge electrons, and every level NIST names in LS coupling
+    obeys the triangle rule |L − S| <= J <= L + S:
+
+    >>> ions = observed_ions()
+    >>> all(sum(occ for _, occ in i.occupations) == i.Z - i.charge for i in ions)
+    True
+    >>> ls = [(i.L, (i.multiplicity - 1) / 2, i.J) for i in ions if i.L is not None]
+    >>> all(abs(L - S) <= J <= L + S for L, S, J in ls)
+    True
+    """
     return tuple(_table()[key] for key in sorted(_table()))

@@ -32,6 +32,12 @@ class Subshell:
     --------
     >>> Subshell(3, 2).label, Subshell(3, 2).capacity
     ('3d', 10)
+
+    The subshells of shell n hold Σ_l 2(2l + 1) = 2n² electrons:
+
+    >>> all(sum(Subshell(n, l).capacity for l in range(min(n, 7))) == 2 * n * n
+    ...     for n in range(1, 8))
+    True
     """
 
     n: int
@@ -90,6 +96,19 @@ def madelung_order(max_n_plus_l: int = 9) -> list[Subshell]:
     The Madelung (aufbau) ordering is an empirical rule of thumb (common practice);
     the observed ground states of about twenty elements break it, which is why the
     element table stores the observed configurations.
+
+    Examples
+    --------
+    Filling subshells in this order closes each p subshell at the electron count of
+    a noble gas (Ne, Ar, Kr, Xe, Rn, Og):
+
+    >>> from itertools import accumulate
+    >>> order = madelung_order()
+    >>> [sub.label for sub in order[:9]]
+    ['1s', '2s', '2p', '3s', '3p', '4s', '3d', '4p', '5s']
+    >>> filled = accumulate(sub.capacity for sub in order)
+    >>> [total for sub, total in zip(order, filled) if sub.l == 1][:6]
+    [10, 18, 36, 54, 86, 118]
     """
     order = [
         Subshell(n, l)

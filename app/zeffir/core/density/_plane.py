@@ -44,6 +44,24 @@ class Plane:
     ê₁ = ê₂ × n̂, so "up" on screen is +z wherever possible. The coordinate planes
     ``Plane.named("xz")`` use x across and z up. Grid coordinates are exactly
     symmetric about 0, which the slice evaluators exploit.
+
+    Examples
+    --------
+    (ê₁, ê₂, n̂) is a right-handed orthonormal frame, every grid point lies at the
+    signed distance ``offset`` from the nucleus along n̂, and the coordinates are
+    symmetric about 0:
+
+    >>> import numpy as np
+    >>> plane = Plane(normal=(1.0, 1.0, 1.0), offset=0.5, extent=2.0, resolution=5)
+    >>> n, e1, e2 = plane.basis()
+    >>> frame = np.array([e1, e2, n])
+    >>> bool(np.allclose(frame @ frame.T, np.eye(3))), bool(np.allclose(np.cross(e1, e2), n))
+    (True, True)
+    >>> x, y, z = plane.points()
+    >>> bool(np.allclose(n[0] * x + n[1] * y + n[2] * z, 0.5))
+    True
+    >>> plane.coordinates().tolist()
+    [-2.0, -1.0, 0.0, 1.0, 2.0]
     """
 
     normal: tuple[float, float, float] = (0.0, 0.0, 1.0)

@@ -33,6 +33,16 @@ class EnergyTerms:
         Electron–nucleus attraction.
     repulsion : float
         Electron–electron repulsion.
+
+    Examples
+    --------
+    He⁺ 1s is an exact eigenstate: T = Z²/2, V = −Z², E = −Z²/2 (Bethe & Salpeter
+    1957, §3) and the virial ratio −V/T is 2:
+
+    >>> from zeffir.core import build
+    >>> e = configuration_energy(build("He+", "hydrogenic"))
+    >>> round(e.kinetic, 9), round(e.potential, 9), round(e.total, 9), round(e.virial_ratio, 9)
+    (2.0, -4.0, -2.0, 2.0)
     """
 
     kinetic: float
@@ -68,6 +78,19 @@ def evaluate_expression(expression: EnergyExpression, integrals: RadialIntegrals
     Returns
     -------
     EnergyTerms
+
+    Examples
+    --------
+    1s² in one Slater-type function of exponent ζ: T = ζ², V_nuc = −2Zζ and
+    F⁰(1s, 1s) = 5ζ/8, so E = ζ² − 2Zζ + 5ζ/8 (here ζ = 1.7, Slater's rules for He):
+
+    >>> from zeffir.core import build
+    >>> from zeffir.core.energy import hund_energy_expression, radial_integrals
+    >>> helium = build("He", "slater")
+    >>> zeta = helium.orbital("1s").zeta
+    >>> e = evaluate_expression(hund_energy_expression(helium.configuration), radial_integrals(helium))
+    >>> bool(abs(e.kinetic - zeta**2) < 1e-9 and abs(e.total - (zeta**2 - 4 * zeta + 5 * zeta / 8)) < 1e-9)
+    True
     """
     kinetic = sum(w * integrals.kinetic(a) for a, w in expression.one_electron.items())
     nuclear = sum(w * integrals.nuclear(a) for a, w in expression.one_electron.items())
@@ -105,6 +128,22 @@ def orbital_energies(expression: EnergyExpression, integrals: RadialIntegrals) -
     References
     ----------
     Roothaan 1960; C. Froese Fischer, *The Hartree–Fock Method for Atoms* (1977), ch. 3.
+
+    Examples
+    --------
+    He 1s² with ζ = 1.7: ε = ζ²/2 − Zζ + 5ζ/8, and for two electrons in one orbital
+    E = 2ε − F⁰(1s, 1s) (the repulsion is counted in both orbital energies):
+
+    >>> from zeffir.core import build
+    >>> from zeffir.core.config import Subshell
+    >>> from zeffir.core.energy import hund_energy_expression, radial_integrals
+    >>> helium, s = build("He", "slater"), Subshell(1, 0)
+    >>> zeta, integrals = helium.orbital("1s").zeta, radial_integrals(helium)
+    >>> eps = orbital_energies(hund_energy_expression(helium.configuration), integrals)[s]
+    >>> bool(abs(eps - (zeta**2 / 2 - 2 * zeta + 5 * zeta / 8)) < 1e-9)
+    True
+    >>> bool(abs(2 * eps - integrals.slater_f(0, s, s) - hund_energy(helium)) < 1e-9)
+    True
     """
     sums: dict[Subshell, float] = {a: 0.0 for a in expression.one_electron}
     for (kind, k, a, b), coefficient in expression.slater.items():
@@ -167,10 +206,36 @@ def configuration_energy(orbitals: OrbitalSet, kind: EnergyKind = "hund",
 
 
 def hund_energy(orbitals: OrbitalSet) -> float:
-    """Total energy (hartree) of the Hund determinant; see :func:`configuration_energy`."""
+    """Total energy (hartree) of the Hund determinant; see :func:`configuration_energy`.
+
+    Examples
+    --------
+    A closed-shell configuration is a single determinant, so its Hund energy is its
+    average energy:
+
+    >>> from zeffir.core import build
+    >>> beryllium = build("Be", "slater")
+    >>> bool(abs(hund_energy(beryllium) - average_energy(beryllium)) < 1e-12)
+    True
+    """
     return configuration_energy(orbitals, "hund").total
 
 
 def average_energy(orbitals: OrbitalSet) -> float:
-    """Average energy E_av (hartree) of the configuration; see :func:`configuration_energy`."""
+    """Average energy E_av (hartree) of the configuration; see :func:`configuration_energy`.
+
+    Examples
+    --------
+    The p² terms lie at ³P = F⁰ − 5F₂, ¹D = F⁰ + F₂, ¹S = F⁰ + 10F₂ (F₂ = F²/25;
+    Condon & Shortley 1935, ch. 7); their (2S+1)(2L+1)-weighted mean,
+    (9·(−5) + 5·1 + 1·10)/15 = −2, puts E_av 3F₂ above the Hund ³P of carbon:
+
+    >>> from zeffir.core import build
+    >>> from zeffir.core.config import Subshell
+    >>> from zeffir.core.energy import radial_integrals
+    >>> carbon, p = build("C", "slater"), Subshell(2, 1)
+    >>> f2 = radial_integrals(carbon).slater_f(2, p, p) / 25
+    >>> bool(abs(average_energy(carbon) - hund_energy(carbon) - 3 * f2) < 1e-9)
+    True
+    """
     return configuration_energy(orbitals, "average").total

@@ -26,6 +26,20 @@ class EnergyExpression:
         Coefficient of each subshell's one-electron energy I(a) (its occupancy).
     slater : dict
         Coefficient of each Slater integral, keyed by :data:`SlaterKey`.
+
+    Examples
+    --------
+    Each electron has one one-electron energy, and each of the N(N − 1)/2 pairs of
+    electrons repels through F⁰ with unit weight, in both expressions (iron: 26
+    electrons, 325 pairs):
+
+    >>> from zeffir.core.config import parse_spec
+    >>> iron = parse_spec("Fe")
+    >>> for e in (hund_energy_expression(iron), average_energy_expression(iron)):
+    ...     f0 = sum(c for (kind, k, _, _), c in e.slater.items() if kind == "F" and k == 0)
+    ...     print(sum(e.one_electron.values()), round(f0, 9))
+    26.0 325.0
+    26.0 325.0
     """
 
     configuration: Configuration

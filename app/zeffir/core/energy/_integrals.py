@@ -66,6 +66,21 @@ class RadialIntegrals:
         P(r) of each subshell (rows), after orthonormalisation.
     dp : ndarray
         dP/dr of each subshell.
+
+    Examples
+    --------
+    He⁺ 1s: T = Z²/2 and −Z⟨1/r⟩ = −Z² (Bethe & Salpeter 1957, §3); the Slater-type
+    1s and 2s of neon come out orthonormal after Gram–Schmidt:
+
+    >>> from zeffir.core import build
+    >>> from zeffir.core.config import Subshell
+    >>> s1, s2 = Subshell(1, 0), Subshell(2, 0)
+    >>> ion = radial_integrals(build("He+", "hydrogenic"))
+    >>> round(ion.kinetic(s1), 9), round(ion.nuclear(s1), 9)
+    (2.0, -4.0)
+    >>> neon = radial_integrals(build("Ne", "slater"))
+    >>> abs(neon.overlap(s1, s2)) < 1e-12, round(neon.overlap(s2, s2), 12)
+    (True, 1.0)
     """
 
     subshells: tuple[Subshell, ...]

@@ -45,6 +45,14 @@ def wigner_3j_squared(j1: int, j2: int, j3: int, m1: int, m2: int, m3: int) -> t
     --------
     >>> wigner_3j_squared(1, 1, 0, 0, 0, 0)
     (-1, Fraction(1, 3))
+
+    Orthogonality, Σ_{m1 m2} (j1 j2 j3; m1 m2 m3)² = 1/(2j3 + 1) (Cowan 1981, §5-1),
+    exactly:
+
+    >>> from fractions import Fraction
+    >>> sum((wigner_3j_squared(2, 3, 4, m1, m2, -1)[1] for m1 in range(-2, 3) for m2 in range(-3, 4)),
+    ...     Fraction(0))
+    Fraction(1, 9)
     """
     args = (j1, j2, j3, m1, m2, m3)
     if any(int(a) != a for a in args):
@@ -132,6 +140,13 @@ def ck_coefficient(k: int, l1: int, m1: int, l2: int, m2: int) -> float:
     --------
     >>> round(ck_coefficient(2, 1, 1, 1, 1), 15)  # Condon & Shortley: c²(1 1; 1 1) = -1/5
     -0.2
+
+    The sum rule Σ_{m2} c^k(l1 m1; l2 m2)² = (2l2 + 1)(l1 k l2; 0 0 0)², the same for
+    every m1 (from the orthogonality of the 3j symbols), here for p and d with k = 1:
+
+    >>> sums = [sum(ck_coefficient(1, 1, m1, 2, m2) ** 2 for m2 in range(-2, 3)) for m1 in (-1, 0, 1)]
+    >>> all(abs(s - 5 * wigner_3j(1, 1, 2, 0, 0, 0) ** 2) < 1e-15 for s in sums)
+    True
     """
     phase = -1 if m1 % 2 else 1
     return phase * math.sqrt((2 * l1 + 1) * (2 * l2 + 1)) * wigner_3j(l1, k, l2, 0, 0, 0) * wigner_3j(

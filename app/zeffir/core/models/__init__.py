@@ -1,7 +1,6 @@
 """Models: each turns a Configuration into an OrbitalSet. Adding a model is adding a module."""
 
 from zeffir.core.models._clementi import ClementiModel, clementi_z_eff
-from zeffir.core.models._hartree_fock import HartreeFockModel
 from zeffir.core.models._hydrogenic import HydrogenicModel
 from zeffir.core.models._registry import (
     DEFAULT_MODEL,
@@ -18,6 +17,7 @@ from zeffir.core.models._slater_rules import (
     slater_screening,
 )
 from zeffir.core.models._variational import VariationalModel
+from zeffir.core.models.hartree_fock import HartreeFockModel
 
 register(HydrogenicModel())
 register(SlaterRulesModel())

@@ -16,18 +16,10 @@ import numpy.typing as npt
 
 from zeffir.core.config import Subshell
 from zeffir.core.energy import EnergyExpression
+from zeffir.core.models._slater_integrals import log_norms, rk_product
 from zeffir.core.orbitals import FloatArray
 
 __all__ = ["StoEnergy", "sto_one_electron"]
-
-
-def _log_norms(n: npt.ArrayLike, zetas: npt.ArrayLike) -> FloatArray:
-    """ln N, N = (2ζ)^{n+½}/√((2n)!), for arrays of n and ζ."""
-    from scipy import special
-
-    nn = np.asarray(n, dtype=float)
-    z = np.asarray(zetas, dtype=float)
-    return np.asarray((nn + 0.5) * np.log(2 * z) - 0.5 * special.gammaln(2 * nn + 1), dtype=float)
 
 
 def sto_one_electron(l: int, n: npt.ArrayLike, zetas: npt.ArrayLike, Z: float
@@ -70,7 +62,7 @@ def sto_one_electron(l: int, n: npt.ArrayLike, zetas: npt.ArrayLike, Z: float
 
     nn = np.asarray(n, dtype=float)
     z = np.asarray(zetas, dtype=float)
-    log_pair = _log_norms(nn, z)[:, None] + _log_norms(nn, z)[None, :]
+    log_pair = log_norms(nn, z)[:, None] + log_norms(nn, z)[None, :]
     total = nn[:, None] + nn[None, :]
     s = z[:, None] + z[None, :]
 
@@ -102,7 +94,7 @@ class StoEnergy:
     G^k(a, b) = Σ C_ap C_bq C_br C_as R^k[pq|rs]. One R^k tensor over all the
     functions serves every pair of subshells (elements that no Slater integral uses,
     where a power falls below k + 1, are set to zero), so an evaluation is one
-    R^k evaluation per k (:func:`zeffir.core.models._hf_integrals.rk_product`,
+    R^k evaluation per k (:func:`zeffir.core.models._slater_integrals.rk_product`,
     with mixed powers) and a few matrix products: F^k = D R^k Dᵀ with
     D_a = C_a ⊗ C_a, and G^k(a, b) the (ab, ba) elements of Y R^k Yᵀ with
     Y_ab = C_a ⊗ C_b.
@@ -174,8 +166,6 @@ class StoEnergy:
         Evaluated once per unordered pair (p ≤ q) on each side and spread: R^k[pq|rs]
         depends on p, q only through n_p + n_q and ζ_p + ζ_q.
         """
-        from zeffir.core.models._hf_integrals import rk_product
-
         size = z.size
         upper_p, upper_q = np.triu_indices(size)
         slot = np.empty((size, size), dtype=int)
@@ -185,7 +175,7 @@ class StoEnergy:
         powers_u = self.n[upper_p] + self.n[upper_q]
         valid = powers_u >= k + 1
         powers = np.where(valid, powers_u, k + 1.0)
-        logs = _log_norms(self.n, z)
+        logs = log_norms(self.n, z)
         log_pairs = logs[upper_p] + logs[upper_q]
         values = rk_product(k, powers[:, None], sums[:, None], powers[None, :], sums[None, :])
         values *= np.exp(log_pairs[:, None] + log_pairs[None, :])

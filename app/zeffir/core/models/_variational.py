@@ -7,20 +7,25 @@ from collections.abc import Callable
 from dataclasses import dataclass
 
 import numpy as np
-import numpy.typing as npt
 
 from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core._errors import ComputationCancelled, ModelError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.models._slater_rules import slater_screening
-from zeffir.core.orbitals import FloatArray, OrbitalSet, RadialFunction, SlaterRadial, SubshellOrbital
+from zeffir.core.orbitals import (
+    FloatArray,
+    OrbitalSet,
+    RadialFunction,
+    SlaterExpansionRadial,
+    SlaterRadial,
+    SubshellOrbital,
+)
 
 __all__ = [
     "OptimisationCancelled",
     "OptimisationError",
     "OptimisationState",
-    "OrthogonalisedSlaterRadial",
     "VariationalModel",
     "VariationalResult",
     "mixing_pairs",
@@ -43,68 +48,6 @@ ZETA_MIN = 1e-3
 ZETA_MAX_PER_Z = 10.0
 #: Largest orbital mixing angle searched (radians); reaching it is a failure.
 MAX_MIXING = 1.0
-
-
-class OrthogonalisedSlaterRadial(RadialFunction):
-    """A normalised combination of Slater-type functions of one l (a minimal-basis orbital).
-
-    Parameters
-    ----------
-    n, l : int
-        The subshell it stands for.
-    terms : sequence of (SlaterRadial, float)
-        The Slater-type functions and their coefficients; the combination must be
-        normalised (as :func:`orthogonalised_radials` makes it, orthonormal to the
-        other orbitals of its l).
-
-    Notes
-    -----
-    R(r) = Σ_j c_j N_j r^{n_j-1} e^{-ζ_j r}. The term of its own subshell has the
-    exponent the model reports; the others make it orthogonal to the other subshells
-    of its l and, for open shells, carry the optimised mixing.
-
-    References
-    ----------
-    Clementi & Raimondi, J. Chem. Phys. 38, 2686 (1963): orbitals expanded in a
-    minimal basis of Slater-type functions.
-    """
-
-    kind = "slater-type, orthogonalised"
-
-    def __init__(self, n: int, l: int, terms: tuple[tuple[SlaterRadial, float], ...]) -> None:
-        self.n, self.l = int(n), int(l)
-        self.terms = terms
-
-    def __repr__(self) -> str:
-        parts = ", ".join(f"{c:+.6g}·STO({s.n_star:g}, {s.zeta:.6g})" for s, c in self.terms)
-        return f"OrthogonalisedSlaterRadial(n={self.n}, l={self.l}, {parts})"
-
-    def shape_key(self) -> object:
-        return ("slater-sum", tuple((s.n_star, s.zeta, c) for s, c in self.terms))
-
-    def __call__(self, r: npt.ArrayLike) -> FloatArray:
-        rr = np.asarray(r, dtype=float)
-        return np.asarray(sum(c * s(rr) for s, c in self.terms), dtype=float)
-
-    def over_r_l(self, r: npt.ArrayLike) -> FloatArray:
-        rr = np.asarray(r, dtype=float)
-        return np.asarray(sum(c * s.over_r_l(rr) for s, c in self.terms), dtype=float)
-
-    def p_derivative(self, r: npt.ArrayLike) -> FloatArray:
-        """dP/dr in closed form: Σ_j c_j P_j (n_j/r - ζ_j)."""
-        rr = np.asarray(r, dtype=float)
-        out = np.zeros_like(rr)
-        for s, c in self.terms:
-            p = s.p(rr)
-            with np.errstate(divide="ignore", invalid="ignore"):
-                dp = np.where(rr > 0, p * (s.n_star / rr - s.zeta), 0.0)
-            if s.n_star == 1.0:
-                dp = np.where(rr == 0, s(np.zeros(1))[0], dp)
-            out += c * dp
-        return out
-
-    def extent(self, tail: float = 1e-14) -> float:
-        return max(s.extent(tail) for s, _ in self.terms)
 
 
 def mixing_pairs(configuration: Configuration) -> tuple[tuple[int, int], ...]:
@@ -142,13 +85,21 @@ def orthogonalised_radials(subshells: tuple[Subshell, ...], zetas: tuple[float, 
     -------
     tuple of RadialFunction
         A :class:`SlaterRadial` where a subshell is its own function alone,
-        otherwise an :class:`OrthogonalisedSlaterRadial`.
+        otherwise a :class:`zeffir.core.orbitals.SlaterExpansionRadial` over the
+        functions of its l: the term of its own subshell has the exponent the model
+        reports, the others make it orthogonal to the other subshells of its l and,
+        for open shells, carry the optimised mixing.
 
     Notes
     -----
     Gram–Schmidt in order is C = L⁻¹ with S = L Lᵀ (Cholesky), S the analytic
     overlap matrix of the functions of one l; each angle θ then applies the
     rotation φ_i → cos θ φ_i + sin θ φ_j, φ_j → cos θ φ_j - sin θ φ_i.
+
+    References
+    ----------
+    E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963) (orbitals expanded
+    in a minimal basis of Slater-type functions).
     """
     stos = [SlaterRadial(s.n, s.l, float(s.n), z) for s, z in zip(subshells, zetas, strict=True)]
     out: list[RadialFunction] = list(stos)
@@ -158,7 +109,7 @@ def orthogonalised_radials(subshells: tuple[Subshell, ...], zetas: tuple[float, 
             terms = tuple((stos[rows[b]], float(coefficients[a, b])) for b in range(len(rows))
                           if coefficients[a, b] != 0.0)
             if len(terms) > 1:
-                out[i] = OrthogonalisedSlaterRadial(subshells[i].n, l, terms)
+                out[i] = SlaterExpansionRadial.from_terms(subshells[i].n, l, terms)
     return tuple(out)
 
 
@@ -488,7 +439,7 @@ class VariationalModel:
         for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
                                             strict=True):
             notes: tuple[str, ...] = ()
-            if isinstance(radial, OrthogonalisedSlaterRadial):
+            if isinstance(radial, SlaterExpansionRadial):
                 notes = (f"{sub.label}: a combination of this configuration's {sub.label[-1]}-type "
                          "Slater functions (orthonormalised); ζ is the exponent of its own one",)
             orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n),

@@ -14,6 +14,7 @@ from zeffir.core.orbitals._angular import (
 from zeffir.core.orbitals._hydrogenic import HydrogenicRadial, laguerre
 from zeffir.core.orbitals._orbital_set import OrbitalSet, SubshellOrbital
 from zeffir.core.orbitals._radial import FloatArray, RadialFunction
+from zeffir.core.orbitals._slater_expansion import SlaterExpansionRadial
 from zeffir.core.orbitals._slater_type import SlaterRadial
 from zeffir.core.orbitals._tabulated import TabulatedRadial, log_grid
 
@@ -23,6 +24,7 @@ __all__ = [
     "Monomials",
     "OrbitalSet",
     "RadialFunction",
+    "SlaterExpansionRadial",
     "SlaterRadial",
     "SubshellOrbital",
     "TabulatedRadial",

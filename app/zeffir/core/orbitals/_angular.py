@@ -56,6 +56,17 @@ def real_label(l: int, m: int) -> str:
     Notes
     -----
     m > 0 is the cos(mφ) combination and m < 0 the sin(|m|φ) one; m = 0 is Y_l0.
+
+    Examples
+    --------
+    Each p label names the one Cartesian monomial of its solid harmonic (px ∝ x):
+
+    >>> [real_label(1, m) for m in (1, -1, 0)]
+    ['px', 'py', 'pz']
+    >>> [[powers for powers, _ in solid_harmonic_monomials(1, m)] for m in (1, -1, 0)]
+    [[(1, 0, 0)], [(0, 1, 0)], [(0, 0, 1)]]
+    >>> real_label(2, -2), [powers for powers, _ in solid_harmonic_monomials(2, -2)]
+    ('dxy', [(1, 1, 0)])
     """
     _check(l, m)
     if l in _NAMED:
@@ -64,13 +75,35 @@ def real_label(l: int, m: int) -> str:
 
 
 def real_labels(l: int) -> list[tuple[str, int]]:
-    """All (label, m) of a subshell, in the conventional order (m = 0, +1, -1, +2, -2, ...)."""
+    """All (label, m) of a subshell, in the conventional order (m = 0, +1, -1, +2, -2, ...).
+
+    Examples
+    --------
+    >>> real_labels(2)
+    [('dz2', 0), ('dxz', 1), ('dyz', -1), ('dx2-y2', 2), ('dxy', -2)]
+
+    Every subshell lists each m from −l to l once, under 2l + 1 distinct labels:
+
+    >>> all(sorted(m for _, m in real_labels(l)) == list(range(-l, l + 1))
+    ...     and len({name for name, _ in real_labels(l)}) == 2 * l + 1 for l in range(7))
+    True
+    """
     order = [0] + [s * k for k in range(1, l + 1) for s in (1, -1)]
     return [(real_label(l, m), m) for m in order]
 
 
 def real_m_from_label(l: int, label: str) -> int:
-    """The m of a real-harmonic label (``'dxy'`` → -2); raises for an unknown label."""
+    """The m of a real-harmonic label (``'dxy'`` → -2); raises for an unknown label.
+
+    Examples
+    --------
+    The inverse of :func:`real_label` for every subshell up to i:
+
+    >>> real_m_from_label(2, "dxy")
+    -2
+    >>> all(real_m_from_label(l, real_label(l, m)) == m for l in range(7) for m in range(-l, l + 1))
+    True
+    """
     for name, m in real_labels(l):
         if name == label or name == f"{label}":
             return m
@@ -227,6 +260,26 @@ def solid_harmonic_monomials(l: int, m: int) -> tuple[tuple[tuple[int, int, int]
     ----------
     T. Helgaker, P. Jørgensen and J. Olsen, *Molecular Electronic-Structure Theory*
     (Wiley, 2000), §6.4.2.
+
+    Examples
+    --------
+    dz2 is √(5/16π) (2z² − x² − y²):
+
+    >>> import numpy as np
+    >>> terms, k = dict(solid_harmonic_monomials(2, 0)), np.sqrt(5 / (16 * np.pi))
+    >>> sorted(terms), bool(np.allclose([terms[0, 0, 2], terms[2, 0, 0], terms[0, 2, 0]], [2 * k, -k, -k]))
+    ([(0, 0, 2), (0, 2, 0), (2, 0, 0)], True)
+
+    A solid harmonic is a harmonic polynomial, ∇²(r^l Y_lm) = 0 (here l = 4, m = 1):
+
+    >>> from collections import Counter
+    >>> laplacian = Counter()
+    >>> for (a, b, c), value in solid_harmonic_monomials(4, 1):
+    ...     laplacian[a - 2, b, c] += a * (a - 1) * value
+    ...     laplacian[a, b - 2, c] += b * (b - 1) * value
+    ...     laplacian[a, b, c - 2] += c * (c - 1) * value
+    >>> max(abs(value) for value in laplacian.values()) < 1e-12
+    True
     """
     _check(l, m)
     am = abs(m)
@@ -244,7 +297,20 @@ def solid_harmonic_monomials(l: int, m: int) -> tuple[tuple[tuple[int, int, int]
 
 
 def solid_harmonic(l: int, m: int, x: npt.ArrayLike, y: npt.ArrayLike, z: npt.ArrayLike) -> FloatArray:
-    """Evaluate the real solid harmonic r^l Y_lm(x, y, z) on arrays (any units of length)."""
+    """Evaluate the real solid harmonic r^l Y_lm(x, y, z) on arrays (any units of length).
+
+    Examples
+    --------
+    The addition theorem (Unsöld, Ann. Phys. 387, 355 (1927)): Σ_m (r^l Y_lm)² =
+    (2l+1)/4π r^{2l} at any point, for every l up to 6:
+
+    >>> import numpy as np
+    >>> x, y, z = np.random.default_rng(7).normal(size=(3, 50))
+    >>> r2 = x * x + y * y + z * z
+    >>> all(bool(np.allclose(sum(solid_harmonic(l, m, x, y, z) ** 2 for m in range(-l, l + 1)),
+    ...                      (2 * l + 1) / (4 * np.pi) * r2**l)) for l in range(7))
+    True
+    """
     xx, yy, zz = (np.asarray(v, dtype=float) for v in (x, y, z))
     out = np.zeros(np.broadcast(xx, yy, zz).shape)
     for (a, b, c), coeff in solid_harmonic_monomials(l, m):

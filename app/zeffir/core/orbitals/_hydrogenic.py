@@ -128,6 +128,21 @@ class HydrogenicRadial(RadialFunction):
         <r^k> = N² (n/2Z)^{3+k} ∫ ρ^{2l+2+k} [L(ρ)]² e^{-ρ} dρ; with weight ρ^α e^{-ρ},
         α = 2l + 2 + k, a rule of n - l + 2 points integrates the degree-2(n-l-1)
         polynomial exactly. Diverges (returns inf) when α <= -1.
+
+        Examples
+        --------
+        The closed forms of Bethe & Salpeter (1957), eqs. (3.24)–(3.26), here for 4f
+        with Z = 3: ⟨r⟩ = (3n² − l(l+1))/2Z, ⟨r²⟩ = n²(5n² + 1 − 3l(l+1))/2Z²,
+        ⟨1/r⟩ = Z/n²:
+
+        >>> import numpy as np
+        >>> n, l, Z = 4, 3, 3.0
+        >>> R = HydrogenicRadial(n, l, Z)
+        >>> bool(np.allclose([R.expectation(1), R.expectation(2), R.expectation(-1)],
+        ...                  [(3 * n * n - l * (l + 1)) / (2 * Z),
+        ...                   n * n * (5 * n * n + 1 - 3 * l * (l + 1)) / (2 * Z * Z), Z / n**2],
+        ...                  rtol=1e-13))
+        True
         """
         alpha = 2 * self.l + 2 + k
         if alpha <= -1:
@@ -138,7 +153,20 @@ class HydrogenicRadial(RadialFunction):
         return float(np.exp(2 * self._log_norm) * total / self._scale ** (3 + k))
 
     def nodes(self) -> FloatArray:
-        """Node radii: the zeros of L_{n-l-1}^{2l+1}(ρ), ρ = 2Zr/n."""
+        """Node radii: the zeros of L_{n-l-1}^{2l+1}(ρ), ρ = 2Zr/n.
+
+        Examples
+        --------
+        Hydrogen 3s has its nodes at r = (9 ± 3√3)/2 bohr (Bethe & Salpeter 1957, §3),
+        and n − l − 1 nodes in general:
+
+        >>> import numpy as np
+        >>> bool(np.allclose(HydrogenicRadial(3, 0, 1.0).nodes(), [(9 - 3 * np.sqrt(3)) / 2,
+        ...                                                        (9 + 3 * np.sqrt(3)) / 2]))
+        True
+        >>> [HydrogenicRadial(5, l, 2.0).nodes().size for l in range(5)]
+        [4, 3, 2, 1, 0]
+        """
         if self.n - self.l - 1 == 0:
             return np.empty(0)
         x, _ = special.roots_genlaguerre(self.n - self.l - 1, 2 * self.l + 1)

@@ -33,6 +33,18 @@ class SubshellOrbital:
         Orbital energy (hartree) where the model defines one.
     notes : tuple of str
         Where a value fell back to another rule, and why.
+
+    Examples
+    --------
+    Under Slater's rules ζ = Z_eff/n* (J. C. Slater, Phys. Rev. 36, 57 (1930)); for a
+    bare nucleus ζ = Z/n and ε = −Z²/2n² (Bethe & Salpeter 1957, §3):
+
+    >>> from zeffir.core import build
+    >>> all(o.zeta == o.z_eff / o.n_star for o in build("C", "slater").orbitals)
+    True
+    >>> o = build("Ne", "hydrogenic").orbital("2p")
+    >>> o.zeta == 10 / 2, o.energy == -(10**2) / (2 * 2**2)
+    (True, True)
     """
 
     subshell: Subshell
@@ -82,6 +94,19 @@ class OrbitalSet:
     memo : dict
         Derived data cached by evaluators (e.g. a tabulated density profile); the
         set itself never changes, so cached values stay valid.
+
+    Examples
+    --------
+    The occupancies add up to the configuration's electrons; without electron
+    repulsion (bare-nucleus orbitals) the total energy is Σ occ · ε:
+
+    >>> from zeffir.core import build
+    >>> iron = build("Fe", "slater")
+    >>> sum(o.occupancy for o in iron.orbitals) == iron.configuration.n_electrons == 26
+    True
+    >>> neon = build("Ne", "hydrogenic")
+    >>> neon.total_energy == sum(o.occupancy * o.energy for o in neon.orbitals) == -200.0
+    True
     """
 
     configuration: Configuration

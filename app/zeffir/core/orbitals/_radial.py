@@ -25,6 +25,22 @@ class RadialFunction(ABC):
         Principal quantum number of the subshell it describes (a label).
     l : int
         Orbital angular momentum quantum number.
+
+    Examples
+    --------
+    The numerical defaults reproduce the hydrogenic closed forms (Bethe & Salpeter
+    1957, eqs. 3.24–3.26): ⟨r⟩ = (3n² − l(l+1))/2Z, ⟨1/r⟩ = Z/n², the 3s nodes at
+    r = (9 ± 3√3)/2 and the 2p maximum of D(r) at n²/Z:
+
+    >>> import numpy as np
+    >>> from zeffir.core.orbitals import HydrogenicRadial
+    >>> p2, s3 = HydrogenicRadial(2, 1, 1.0), HydrogenicRadial(3, 0, 1.0)
+    >>> [round(RadialFunction.expectation(p2, k), 9) for k in (0, 1, -1)]
+    [1.0, 5.0, 0.25]
+    >>> bool(np.allclose(RadialFunction.nodes(s3), [(9 - 3 * np.sqrt(3)) / 2, (9 + 3 * np.sqrt(3)) / 2]))
+    True
+    >>> round(RadialFunction.r_max(p2), 6), round(float(RadialFunction.cumulative(p2, [60.0])[0]), 9)
+    (4.0, 1.0)
     """
 
     n: int

@@ -51,6 +51,19 @@ class DeterminantError(SpecError):
     """A determinant (typed or built) breaks a rule: Pauli, subshell, m range or electron count.
 
     The message names the offending token or spin-orbital and the rule.
+
+    Examples
+    --------
+    The Pauli principle: one spin-orbital cannot hold two electrons.
+
+    >>> from zeffir.core import parse_spec
+    >>> from zeffir.core.config import Subshell
+    >>> up = SpinOrbital(Subshell(1, 0), 0, UP)
+    >>> try:
+    ...     Determinant(parse_spec("He"), (up, up))
+    ... except DeterminantError as error:
+    ...     print(error)
+    1s 0u: listed twice (Pauli principle: a spin-orbital holds one electron)
     """
 
 
@@ -130,6 +143,29 @@ class Determinant:
     References
     ----------
     J. C. Slater, Phys. Rev. 34, 1293 (1929).
+
+    Examples
+    --------
+    Placing carbon's two 2p electrons in every ordered pair of the six 2p
+    spin-orbitals gives C(6, 2) = 15 distinct determinants, the microstates of p²
+    (the order only fixes a sign; a repeated spin-orbital is refused). By M_S they
+    split 3 + 9 + 3, as the terms ³P, ¹D and ¹S require (3 + 5 + 1 at M_S = 0):
+
+    >>> from collections import Counter
+    >>> from zeffir.core import parse_spec
+    >>> from zeffir.core.config import Subshell
+    >>> carbon = parse_spec("C")
+    >>> closed = [SpinOrbital(Subshell(n, 0), 0, spin) for n in (1, 2) for spin in (UP, DOWN)]
+    >>> p = [SpinOrbital(Subshell(2, 1), m, spin) for m in (-1, 0, 1) for spin in (UP, DOWN)]
+    >>> found = set()
+    >>> for a in p:
+    ...     for b in p:
+    ...         try:
+    ...             found.add(Determinant(carbon, (*closed, a, b)))
+    ...         except DeterminantError:
+    ...             pass
+    >>> len(found), sorted(Counter(d.m_s for d in found).items())
+    (15, [(-1.0, 3), (0.0, 9), (1.0, 3)])
     """
 
     configuration: Configuration
@@ -233,6 +269,13 @@ def hund_determinant(configuration: Configuration) -> Determinant:
     >>> det = hund_determinant(parse_spec("O"))
     >>> det.m_s, det.m_l, det.text
     (1.0, 1, '2p: 1u 0u -1u 1d')
+
+    Its M_S and M_L are S and L of the Hund term, for open d and f shells too:
+
+    >>> from zeffir.core.terms import ground_level
+    >>> all((hund_determinant(parse_spec(s)).m_s, hund_determinant(parse_spec(s)).m_l)
+    ...     == (ground_level(s).S, ground_level(s).L) for s in ("O", "Fe", "Gd3+", "Ho"))
+    True
     """
     items: list[SpinOrbital] = []
     for subshell, electrons in configuration.occupations:
@@ -352,6 +395,9 @@ def format_determinant(determinant: Determinant) -> str:
     >>> from zeffir.core import parse_spec
     >>> format_determinant(hund_determinant(parse_spec("Fe")))
     '3d: 2u 1u 0u -1u -2u 2d'
+    >>> nitrogen = parse_determinant(parse_spec("N"), "2p: 1u 0u -1d")
+    >>> parse_determinant(nitrogen.configuration, format_determinant(nitrogen)) == nitrogen
+    True
     """
     groups = []
     for subshell in determinant.configuration.open_subshells:

@@ -27,6 +27,25 @@ def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: 
     (2·``polar_points`` nodes, exact for trigonometric polynomials of the degrees
     met here). The sum rule ∫ h_x = −1 holds for every r1 (Parr & Yang 1989, §2.4),
     so the value shown is a check of the numbers on screen.
+
+    References
+    ----------
+    R. G. Parr and W. Yang, *Density-Functional Theory of Atoms and Molecules*
+    (Oxford, 1989), §2.4.
+
+    Examples
+    --------
+    The exchange hole of the spin-down electrons of oxygen's Hund determinant
+    (closed 1s, 2s and one 2p electron) removes exactly one electron:
+
+    >>> import numpy as np
+    >>> from zeffir.core import build
+    >>> from zeffir.core.pairs import DOWN, hund_determinant
+    >>> oxygen = build("O", "slater")
+    >>> determinant = hund_determinant(oxygen.configuration)
+    >>> total = hole_integral(oxygen, np.array([0.3, 0.0, 0.4]), DOWN, determinant)
+    >>> bool(abs(total + 1.0) < 1e-9)
+    True
     """
     scale = max(o.radial.expectation(1) for o in orbitals.orbitals)
     x, wx = leggauss(radial_points)

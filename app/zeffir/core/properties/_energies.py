@@ -35,6 +35,17 @@ class EnergySummary:
     remark : str or None
         Why no correlation energy is given under a Hartree–Fock model ("not given: …"),
         else None.
+
+    Examples
+    --------
+    Helium under Hartree–Fock: the energy reaches the Hartree–Fock limit −2.861680
+    hartree (E. Clementi and C. Roetti, At. Data Nucl. Data Tables 14, 177 (1974)) at
+    virial ratio 2, and E_corr = −0.042044 hartree against Pekeris's exact energy:
+
+    >>> from zeffir.core import build
+    >>> s = energy_summary(build("He", "hartree-fock"), "hartree-fock")
+    >>> round(s.total, 6), round(s.virial_ratio, 6), round(s.correlation, 6)
+    (-2.86168, 2.0, -0.042044)
     """
 
     total: float | None

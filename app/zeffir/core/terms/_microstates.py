@@ -41,7 +41,25 @@ _INT64_LIMIT: Final[int] = 2**62
 
 
 class TermError(ZeffirError, ValueError):
-    """The terms of a configuration cannot be listed (there are far too many)."""
+    """The terms of a configuration cannot be listed (there are far too many).
+
+    Examples
+    --------
+    Four half-filled or nearly half-filled subshells of high l have
+    Π C(2(2l + 1), k) ≈ 1.2e21 microstates: the count is still exact, the terms are
+    not listed:
+
+    >>> from math import comb
+    >>> from zeffir.core.terms import configuration_terms, microstate_count
+    >>> spec = "Zr 4f7 5g9 6h11 7i13"
+    >>> microstate_count(spec) == comb(14, 7) * comb(18, 9) * comb(22, 11) * comb(26, 13)
+    True
+    >>> try:
+    ...     configuration_terms(spec)
+    ... except TermError as error:
+    ...     print(error)
+    Zr 4f7 5g9 6h11 7i13: 1.224e+21 microstates: too many to count the terms
+    """
 
 
 def microstates(shells: OpenShells) -> int:

@@ -30,6 +30,19 @@ class ObservedLevel:
     level : Level or None
         The LS level, when NIST names the level in LS coupling.
     source : str
+
+    Examples
+    --------
+    Eu³⁺ 4f⁶ (NIST ASD: ⁷F₀): the level's J and parity are the observed ones, the
+    parity is the configuration's (−1)^Σl, and J = |L − S| as Hund's third rule
+    gives for a shell less than half full:
+
+    >>> from zeffir.core.terms import configuration_parity
+    >>> eu = observed_level("Eu3+")
+    >>> eu.text, eu.level.J == eu.J == abs(eu.level.L - eu.level.S)
+    ('7F0', True)
+    >>> eu.parity == configuration_parity("Eu3+")
+    True
     """
 
     text: str
@@ -42,7 +55,9 @@ class ObservedLevel:
 # ground_level) give another level. Only cases checked against the NIST ASD
 # ground-levels table belong here; the list is not exhaustive.
 _MISSES: Final[tuple[tuple[str, Level], ...]] = (
-    # Ce I, [Xe] 4f 5d 6s2: NIST ASD ground level 1G°4 (from memory); Hund gives 3H°4.
+    # Ce I, [Xe] 4f 5d 6s2: NIST ASD ground level 1G°4 (spectrum Ce I in the digitised copy
+    # of the ASD listing in mendeleev 1.3.0, as tests/reference/data/nist_neutral_ground_levels.csv
+    # has it); Hund gives 3H°4.
     ("Ce [Xe] 4f1 5d1 6s2", Level(S=0, L=4, J=4, parity="odd")),
 )
 

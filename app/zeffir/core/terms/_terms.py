@@ -54,6 +54,12 @@ class Term:
     ('3P', 3, (0.0, 1.0, 2.0))
     >>> Term(S=1, L=5, parity="odd").display
     '3H°'
+
+    Its J levels share out its states, Σ_J (2J + 1) = (2S + 1)(2L + 1):
+
+    >>> all(sum(two_j + 1 for two_j in t.two_J) == t.states
+    ...     for t in (Term(S / 2, L, "even") for S in range(7) for L in range(7)))
+    True
     """
 
     S: float
@@ -173,7 +179,24 @@ def as_configuration(configuration: Configuration | str) -> Configuration:
 
 
 def open_shells(configuration: Configuration | str) -> OpenShells:
-    """The open subshells as sorted (l, electrons) pairs; closed ones are left out."""
+    """The open subshells as sorted (l, electrons) pairs; closed ones are left out.
+
+    Examples
+    --------
+    Only open subshells carry microstates, Π C(2(2l + 1), k) over these pairs
+    (Condon & Shortley 1935), and the terms account for every one of them:
+
+    >>> from math import comb, prod
+    >>> spec = "C 1s2 2s2 2p1 3d1"
+    >>> shells = open_shells(spec)
+    >>> shells
+    ((1, 1), (2, 1))
+    >>> count = prod(comb(2 * (2 * l + 1), k) for l, k in shells)
+    >>> count == microstate_count(spec) == sum(t.states for t in configuration_terms(spec)) == 60
+    True
+    >>> open_shells("Ne")
+    ()
+    """
     conf = as_configuration(configuration)
     return tuple(sorted((sub.l, occ) for sub, occ in conf.occupations if occ < sub.capacity))
 
@@ -320,6 +343,14 @@ def ground_level(configuration: Configuration | str) -> Level:
     --------
     >>> ground_level("C").label, ground_level("O").label, ground_level("N").display
     ('3P0', '3P2', '4S°3/2')
+
+    These are the observed ground levels (NIST ASD). The level's term is the first
+    of :func:`configuration_terms` (largest S, then L), with several open subshells
+    too:
+
+    >>> all(ground_level(s).term == configuration_terms(s)[0]
+    ...     for s in ("C", "Fe", "Gd3+", "C 1s2 2s2 2p1 3d1", "Ne"))
+    True
     """
     conf = as_configuration(configuration)
     shells = open_shells(conf)

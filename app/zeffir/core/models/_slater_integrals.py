@@ -1,12 +1,18 @@
-"""Closed-form integrals over Slater-type functions of one n per l, for the Roothaan method."""
+"""Closed-form integrals over normalised Slater-type functions N r^{n-1} e^{-ζr}.
+
+Overlap, kinetic-energy and nuclear-attraction matrices of functions of one n, and the
+two-electron radial integrals R^k of any four functions: the Roothaan–Hartree–Fock
+solvers (:mod:`zeffir.core.models.hartree_fock`, one n = l + 1 per l) and the
+closed-form energy of the variational model (``_sto_energy``, mixed n) both use them.
+"""
 
 from __future__ import annotations
 
 import numpy as np
 import numpy.typing as npt
-from scipy import special
 
 from zeffir.core._errors import QuantumNumberError
+from zeffir.core._scipy import special
 from zeffir.core.orbitals import FloatArray
 
 __all__ = [
@@ -19,13 +25,14 @@ __all__ = [
 ]
 
 
-def log_norms(n: int, zetas: npt.ArrayLike) -> FloatArray:
+def log_norms(n: int | npt.ArrayLike, zetas: npt.ArrayLike) -> FloatArray:
     """ln N of normalised Slater-type functions N r^{n-1} e^{-ζr}.
 
     Parameters
     ----------
-    n : int
-        Principal quantum number of the functions (>= 1).
+    n : int or array_like
+        Principal quantum number of the functions (>= 1): one for all, or one per
+        exponent.
     zetas : array_like
         Exponents ζ > 0 (bohr⁻¹).
 
@@ -42,11 +49,14 @@ def log_norms(n: int, zetas: npt.ArrayLike) -> FloatArray:
     --------
     >>> bool(abs(np.exp(log_norms(1, [1.0]))[0] - 2.0) < 1e-15)  # 1s of hydrogen: 2 e^{-r}
     True
+    >>> bool(np.allclose(np.exp(log_norms([1, 2], [1.0, 0.5])), [2.0, 1 / np.sqrt(24.0)], rtol=1e-15))
+    True
     """
+    nn = np.asarray(n, dtype=float)
     z = np.asarray(zetas, dtype=float)
-    if n < 1 or np.any(~(z > 0)):
-        raise QuantumNumberError(f"Slater-type functions need n >= 1 and ζ > 0 (n = {n})")
-    return np.asarray((n + 0.5) * np.log(2 * z) - 0.5 * special.gammaln(2 * n + 1), dtype=float)
+    if np.any(~(nn >= 1)) or np.any(~(z > 0)):
+        raise QuantumNumberError(f"Slater-type functions need n >= 1 and ζ > 0 (n = {n!r})")
+    return np.asarray((nn + 0.5) * np.log(2 * z) - 0.5 * special.gammaln(2 * nn + 1), dtype=float)
 
 
 def _moment(n: int, zetas: FloatArray, power: int) -> FloatArray:
