@@ -171,9 +171,43 @@ def main() -> int:
                 for source in four.series())
     many = median_seconds(lambda: compare_radial(four))
     report("compare_radial_four_series", many / alone, "x the four scenes alone", "<= 1.3")
+    model_cases()
     cli_cases()
     window_cases(baseline)
     return 0
+
+
+def model_cases() -> None:
+    """Wall times of the slow models: variational Xe, a hopeless Hartree–Fock case, a table sweep."""
+    import tempfile
+
+    from zeffir.core import ZeffirError, build
+    from zeffir.core.sweep import DiskCache, build_many, neutral_atoms
+
+    start = time.perf_counter()
+    build("Xe", "variational")
+    report("variational_xe_wall", time.perf_counter() - start, "s", "<= 2")
+    # He 1s1 5s1 has no self-consistent solution in the default basis: how long until it says so.
+    start = time.perf_counter()
+    try:
+        build("He 1s1 5s1", "hartree-fock")
+        outcome = "converged"
+    except ZeffirError as error:
+        outcome = str(error)
+    report("hf_fail_fast_wall", time.perf_counter() - start, "s", "<= 5")
+    print(f"  ({outcome[:140]})", flush=True)
+    # Hartree–Fock for every neutral atom H–Og on all cores, then again from the disk cache.
+    with tempfile.TemporaryDirectory() as scratch:
+        cache = DiskCache(scratch)
+        start = time.perf_counter()
+        points = build_many(neutral_atoms(), "hartree-fock", cache=cache)
+        report("hf_table_sweep_wall", time.perf_counter() - start, "s", "<= 120")
+        refused = [p.spec for p in points if not p.ok]
+        print(f"  ({len(points) - len(refused)} of {len(points)} converged; refused: "
+              f"{', '.join(refused) or 'none'})", flush=True)
+        start = time.perf_counter()
+        build_many(neutral_atoms(), "hartree-fock", cache=cache)
+        report("hf_table_cached_wall", time.perf_counter() - start, "s", "<= 1")
 
 
 def _process_seconds(argv: list[str], env: dict[str, str] | None = None, repeats: int = 5) -> float:

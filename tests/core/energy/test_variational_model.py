@@ -11,7 +11,7 @@ from zeffir.core.models._variational import (
     VariationalModel,
     optimise_exponents,
 )
-from zeffir.core.orbitals import SlaterExpansionRadial as OrthogonalisedSlaterRadial
+from zeffir.core.orbitals import SlaterExpansionRadial
 
 
 @pytest.fixture(scope="module")
@@ -26,7 +26,7 @@ def test_model_fills_the_orbital_set(carbon):
         assert orbital.n_star == orbital.n
         assert orbital.z_eff == pytest.approx(orbital.zeta * orbital.n, rel=1e-15)
         assert orbital.energy is not None and orbital.energy < 0  # ⟨φ|F|φ⟩, see test_orbital_energies.py
-    assert isinstance(carbon.orbital("2s").radial, OrthogonalisedSlaterRadial)
+    assert isinstance(carbon.orbital("2s").radial, SlaterExpansionRadial)
     assert carbon.orbital("2s").notes
 
 
@@ -108,7 +108,7 @@ def test_open_shell_mixes_same_l_orbitals():
     result = optimise_exponents(parse_spec("Li"))
     assert list(result.mixing) == [(0, 1)]
     assert 1e-3 < abs(result.mixing[(0, 1)]) < 0.1
-    assert isinstance(result.radials[0], OrthogonalisedSlaterRadial)
+    assert isinstance(result.radials[0], SlaterExpansionRadial)
     # Closed 1s² 2s² in carbon: no angle, a pure 1s function.
     assert optimise_exponents(parse_spec("C")).mixing == {}
 
