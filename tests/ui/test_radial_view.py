@@ -168,3 +168,29 @@ def test_linked_views_share_a_range_that_holds_both(qtbot, sodium):
         for curve in scene.curves:
             assert x0 <= curve.x.min() and curve.x.max() <= x1 + 1e-9
             assert y0 <= curve.y.min() and curve.y.max() <= y1
+
+
+def _drawn(view: RadialView) -> tuple[object, ...]:
+    curves = {label: (x.tolist(), y.tolist()) for label, (x, y) in view.curve_data().items()}
+    legend = [label.text for _, label in view._legend.items]
+    return curves, sorted(view.marker_positions()), legend, view._plot.titleLabel.text
+
+
+@pytest.mark.parametrize("second", [("Na", "clementi"), ("Na", "hydrogenic"), ("Mg+", "slater")])
+def test_a_redrawn_scene_equals_a_fresh_drawing(qtbot, sodium, second):
+    # A scene of the same layout reuses the drawn items; the picture must not differ
+    # from drawing that scene in a new view (curves, markers, legend rows, title).
+    other = radial_scene(Source(*second), RadialSettings(), "bohr", "3s")
+    reused = RadialView()
+    fresh = RadialView()
+    for widget in (reused, fresh):
+        qtbot.addWidget(widget)
+        widget.resize(800, 600)
+        widget.show()
+    reused.set_scene(sodium)
+    reused.set_scene(other)
+    fresh.set_scene(other)
+    assert _drawn(reused) == _drawn(fresh)
+    reused.set_scene(sodium)  # and back
+    fresh.set_scene(sodium)
+    assert _drawn(reused) == _drawn(fresh)

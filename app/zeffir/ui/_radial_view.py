@@ -161,6 +161,9 @@ class RadialView(QWidget):
         if scene is None:
             self._show_message()
             return
+        if self._same_layout(scene):
+            self._update_curves(scene)
+            return
         self._clear_drawing()
         self._scene = scene
         self._frame.show_plot()
@@ -216,6 +219,55 @@ class RadialView(QWidget):
         self._place_legend()
         self._hide_cursor()
 
+    @staticmethod
+    def _layout_of(scene: RadialScene) -> tuple[object, ...]:
+        """What decides the plot's items and legend rows (not the numbers they show)."""
+        several = bool(scene.series_names)
+        kinds = sorted({m.kind for m in scene.markers
+                        if not (scene.log_r and m.x <= 0) and not (several and m.kind == "mean")})
+        return (scene.log_r, scene.highlight, scene.series_names, tuple(kinds),
+                tuple((c.label, c.subshell, c.series) for c in scene.curves))
+
+    def _same_layout(self, scene: RadialScene) -> bool:
+        """True when ``scene`` differs from the one drawn only in its numbers and texts."""
+        return (self._scene is not None and len(self._curves) == len(scene.curves)
+                and self._layout_of(self._scene) == self._layout_of(scene))
+
+    def _update_curves(self, scene: RadialScene) -> None:
+        """Redraw a scene of the same layout: new data on the same items, the legend kept.
+
+        A model switch on the same atom keeps every curve and legend row, and rebuilding
+        them costs more than the picture's frame budget; only the data, the markers,
+        the titles and the range change.
+        """
+        self._scene = scene
+        self._shown_title = None
+        self._fit_title()
+        self._plot.setLabel("bottom", html.escape(scene.x_label), **label_style())
+        self._y_label_short = None
+        self._fit_y_label()
+        self._set_tooltips(scene)
+        negative = False
+        for curve in scene.curves:
+            x = np.asarray(curve.x, dtype=float)
+            y = np.asarray(curve.y, dtype=float)
+            if scene.log_r:
+                keep = x > 0
+                x, y = x[keep], y[keep]
+            item, colour, *_ = self._curves[curve.label]
+            item.setData(x, y)
+            self._curves[curve.label] = (item, colour, x, y)
+            negative = negative or bool(y.size and np.nanmin(y) < 0)
+        self._zero_line.setVisible(negative)
+        for marker in self._marker_items:
+            self._plot.removeItem(marker)
+        self._marker_items.clear()
+        self._markers.clear()
+        self._draw_markers(scene, legend=False)
+        self._fit_range()
+        self._place_legend()
+        self._hide_cursor()
+
     def set_legend_visible(self, visible: bool) -> None:
         """Show or hide the legend (a grid of panels with equal curves needs it once)."""
         self._legend.setVisible(visible)
@@ -262,7 +314,7 @@ class RadialView(QWidget):
         self._zero_line.hide()
         self._hide_cursor()
 
-    def _draw_markers(self, scene: RadialScene) -> None:
+    def _draw_markers(self, scene: RadialScene, legend: bool = True) -> None:
         unit = split_label(scene.x_label)[1]
         nodes: dict[str, list[tuple[float, str]]] = {}
         kinds: list[str] = []
@@ -302,6 +354,8 @@ class RadialView(QWidget):
             scatter.setZValue(6)
             self._plot.addItem(scatter, ignoreBounds=True)
             self._marker_items.append(scatter)
+        if not legend:  # the rows of these marker kinds are in the legend already
+            return
         self._legend.setToolTip("\n".join(MARKER_TEXT[k][1] for k in MARKER_TEXT if k in kinds)
                                 + ("\nMarkers take the colour of their subshell." if kinds else ""))
         for kind in sorted(kinds, key=list(MARKER_TEXT).index):
