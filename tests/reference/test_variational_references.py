@@ -29,3 +29,23 @@ def test_single_zeta_exponents_match_clementi_raimondi(spec):
     for orbital in built.orbitals:
         published, _source = clementi_z_eff(Z, orbital.subshell)
         assert orbital.zeta == pytest.approx(published / orbital.n, abs=1.5e-4), orbital.label
+
+
+@pytest.mark.parametrize(("spec", "table_configuration"), [
+    ("Cr", "Cr [Ar] 3d4 4s2"), ("Cu", "Cu [Ar] 3d9 4s2"),
+])
+def test_clementi_raimondi_cr_and_cu_rows_are_the_d_s2_configurations(spec, table_configuration):
+    # E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963), Table I (via
+    # resources/data/clementi_exponents.csv): their Cr and Cu exponents are reproduced by
+    # this model in 3d⁴ 4s² and 3d⁹ 4s² (largest relative difference 1.4e-3, Cr 4s; Cu
+    # 4.4e-4), as closely as their other rows are for Z = 2–36 (below 7e-4, As 4p
+    # excepted), and missed by 15 % (Cr) and 21 % (Cu) in the 3d⁵ 4s¹ and 3d¹⁰ 4s¹ ground
+    # configurations. Tested at 2e-3 and 0.1.
+    def worst(text):
+        configuration = parse_spec(text)
+        result = optimise_exponents(configuration)
+        return max(abs(zeta - clementi_z_eff(configuration.Z, sub)[0] / sub.n) / zeta
+                   for (sub, _), zeta in zip(configuration.occupations, result.zetas, strict=True))
+
+    assert worst(table_configuration) < 2e-3
+    assert worst(spec) > 0.1

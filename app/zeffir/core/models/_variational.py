@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 from collections.abc import Callable
 from dataclasses import dataclass
+from typing import TYPE_CHECKING
 
 import numpy as np
 
@@ -22,12 +23,17 @@ from zeffir.core.orbitals import (
     SubshellOrbital,
 )
 
+if TYPE_CHECKING:
+    from zeffir.core.models._sto_energy import StoEnergy
+
 __all__ = [
     "OptimisationCancelled",
     "OptimisationError",
     "OptimisationState",
     "VariationalModel",
     "VariationalResult",
+    "coefficient_derivatives",
+    "energy_and_gradient",
     "mixing_pairs",
     "optimise_exponents",
     "orthogonalised_radials",
@@ -35,13 +41,9 @@ __all__ = [
 
 #: Largest |∂E/∂ln ζ| (hartree) accepted as a stationary point. Below it -V/T - 2 < ~1e-7.
 GRADIENT_TOLERANCE = 2e-7
-#: Step in ln ζ of the five-point central differences of the gradient. The closed-form
-#: energy scatters by ~1e-11 Eh (Kr) from rounding in the incomplete beta functions;
-#: with h = 1e-3 the rounding error of the derivative is ~1e-8 Eh and the truncation
-#: error (h⁴/30 · E⁽⁵⁾) below 1e-9 Eh. A two-point difference with h = 1e-5 left Kr's
-#: gradient at 4e-7 Eh, above GRADIENT_TOLERANCE.
-_STEP = 1e-3
-#: Step in ln ζ of the finite-difference Hessian used to polish the optimum.
+#: Step in ln ζ and θ of the central differences of the (analytic) gradient that give
+#: the Hessian of the Newton polish; its O(h²) error changes the step, not the point
+#: the gradient converges to.
 _HESSIAN_STEP = 1e-3
 #: Exponents are kept in [ZETA_MIN, ZETA_MAX_PER_Z · Z]; an optimum on a bound is a failure.
 ZETA_MIN = 1e-3
@@ -150,6 +152,127 @@ def orthonormal_coefficients(subshells: tuple[Subshell, ...], zetas: tuple[float
                 coefficients[b] = math.cos(theta) * row_b - math.sin(theta) * row_a
         out[l] = coefficients
     return out
+
+
+def _rotation(size: int, a: int, b: int, theta: float, derivative: bool = False) -> FloatArray:
+    """The row operation of one mixing angle (see :func:`orthonormal_coefficients`), or its θ-derivative."""
+    out = np.zeros((size, size)) if derivative else np.eye(size)
+    c, s = (-math.sin(theta), math.cos(theta)) if derivative else (math.cos(theta), math.sin(theta))
+    out[a, a], out[a, b], out[b, a], out[b, b] = c, s, -s, c
+    return out
+
+
+def coefficient_derivatives(subshells: tuple[Subshell, ...], zetas: tuple[float, ...],
+                            mixing: dict[tuple[int, int], float],
+                            ) -> dict[int, tuple[FloatArray, FloatArray, dict[tuple[int, int], FloatArray]]]:
+    """``{l: (C, dC/dζ, {pair: dC/dθ})}`` of :func:`orthonormal_coefficients`.
+
+    Parameters
+    ----------
+    subshells, zetas, mixing
+        As for :func:`orthonormal_coefficients`; ``mixing`` names every angle to
+        differentiate with respect to.
+
+    Returns
+    -------
+    dict
+        C as :func:`orthonormal_coefficients` gives it; dC/dζ of shape (m, m, m), its
+        first index the ζ of the group's m subshells in order of n; one dC/dθ per
+        mixing pair within the group.
+
+    Notes
+    -----
+    With S = L Lᵀ and C₀ = L⁻¹, a change dS gives dL = L Φ(C₀ dS C₀ᵀ), Φ the lower
+    triangle with the diagonal halved, so dC₀ = -Φ(C₀ dS C₀ᵀ) C₀; the rotations
+    G_K ⋯ G_1 that follow are linear in C₀, and ∂C/∂θ_j replaces G_j by its
+    derivative.
+
+    References
+    ----------
+    S. P. Smith, J. Comput. Graph. Stat. 4, 134 (1995) (differentiation of the
+    Cholesky factorisation).
+    """
+    from zeffir.core.models._sto_energy import sto_one_electron, sto_one_electron_derivatives
+
+    out: dict[int, tuple[FloatArray, FloatArray, dict[tuple[int, int], FloatArray]]] = {}
+    for l in sorted({s.l for s in subshells}):
+        rows = _rows_of(subshells, l)
+        size = len(rows)
+        if size < 2:
+            out[l] = (np.ones((1, 1)), np.zeros((1, 1, 1)), {})
+            continue
+        ns, zs = [subshells[i].n for i in rows], [zetas[i] for i in rows]
+        overlap, _, _ = sto_one_electron(l, ns, zs, 0.0)
+        d_overlap, _, _ = sto_one_electron_derivatives(l, ns, zs, 0.0)
+        try:
+            lower = np.linalg.cholesky(overlap)
+        except np.linalg.LinAlgError:
+            raise ModelError(f"l = {l}: Slater-type functions linearly dependent at ζ = {zetas}") from None
+        start = np.linalg.inv(lower)
+        steps = [((i, j), rows.index(i), rows.index(j), theta) for (i, j), theta in sorted(mixing.items())
+                 if i in rows and j in rows]
+        rotations = [_rotation(size, a, b, theta) for _, a, b, theta in steps]
+        turn = np.eye(size)
+        for rotation in rotations:
+            turn = rotation @ turn
+        coefficients = turn @ start
+        d_zeta = np.empty((size, size, size))
+        for a in range(size):
+            d_s = np.zeros((size, size))
+            d_s[a, :] += d_overlap[a, :]
+            d_s[:, a] += d_overlap[a, :]
+            inner = start @ d_s @ start.T
+            phi = np.tril(inner) - 0.5 * np.diag(np.diag(inner))
+            d_zeta[a] = -turn @ phi @ start
+        d_theta: dict[tuple[int, int], FloatArray] = {}
+        for position, (pair, a, b, theta) in enumerate(steps):
+            before, after = np.eye(size), np.eye(size)
+            for rotation in rotations[:position]:
+                before = rotation @ before
+            for rotation in rotations[position + 1:]:
+                after = rotation @ after
+            d_theta[pair] = after @ _rotation(size, a, b, theta, derivative=True) @ before @ start
+        out[l] = (coefficients, d_zeta, d_theta)
+    return out
+
+
+def energy_and_gradient(energy: StoEnergy, pairs: tuple[tuple[int, int], ...], x: FloatArray,
+                        ) -> tuple[float, float, FloatArray]:
+    """T, V and ∂E/∂x at x = (ln ζ per subshell, then θ per mixing pair), in closed form.
+
+    Parameters
+    ----------
+    energy : StoEnergy
+        The closed-form energy of the configuration's expression.
+    pairs : tuple
+        The mixing pairs (:func:`mixing_pairs`), in the order of their angles in x.
+    x : ndarray
+
+    Returns
+    -------
+    kinetic, potential : float
+        T and V (hartree).
+    gradient : ndarray
+        ∂E/∂ln ζ_i = ζ_i (∂E/∂ζ_i at fixed C + Σ ∂E/∂C · ∂C/∂ζ_i), then
+        ∂E/∂θ_j = Σ ∂E/∂C · ∂C/∂θ_j (hartree): the chain rule through
+        :func:`coefficient_derivatives`.
+    """
+    subshells = energy.subshells
+    m = len(subshells)
+    zetas = tuple(float(z) for z in np.exp(x[:m]))
+    mixing = dict(zip(pairs, map(float, x[m:]), strict=True))
+    derivatives = coefficient_derivatives(subshells, zetas, mixing)
+    found = energy.gradient_at(zetas, {l: d[0] for l, d in derivatives.items()})
+    by_zeta = found.zetas.copy()
+    by_angle = np.zeros(len(pairs))
+    for l, (_, d_zeta, d_theta) in derivatives.items():
+        rows = _rows_of(subshells, l)
+        block = found.coefficients[np.ix_(rows, rows)]
+        by_zeta[rows] += np.einsum("ipq,pq->i", d_zeta, block)
+        for pair, d in d_theta.items():
+            by_angle[pairs.index(pair)] += float(np.sum(d * block))
+    return (found.kinetic, found.nuclear + found.repulsion,
+            np.concatenate([by_zeta * np.asarray(zetas), by_angle]))
 
 
 @dataclass(frozen=True, slots=True)
@@ -269,11 +392,24 @@ def optimise_exponents(
     the minimal-basis orbitals of Clementi & Raimondi (orbitals expanded in the
     same-l χ); for pairs of closed subshells a rotation leaves the determinant, and
     so the energy, unchanged and is omitted. L-BFGS-B minimises E over (ln ζ, θ) from
-    Slater's rules (with n* = n) and θ = 0, with five-point central-difference
-    gradients (step 1e-3) of the closed-form energy
-    (:class:`zeffir.core.models._sto_energy.StoEnergy`), then Newton steps polish the
-    optimum until every derivative is below :data:`GRADIENT_TOLERANCE`. At the optimum -V/T = 2 (virial
-    theorem: scaling all ζ together is one of the variations).
+    Slater's rules (with n* = n) and θ = 0 with the analytic gradient: the energy and
+    its derivatives at fixed orbital coefficients are closed forms
+    (:meth:`zeffir.core.models._sto_energy.StoEnergy.gradient_at`), and the
+    coefficients' dependence on ζ and θ (Gram–Schmidt through the Cholesky factor of
+    the overlap, then the rotations) is differentiated by
+    :func:`coefficient_derivatives`. Newton steps (Hessian from central differences
+    of that gradient) then polish the optimum until every derivative is below
+    :data:`GRADIENT_TOLERANCE`. At the optimum -V/T = 2 (virial theorem: scaling all
+    ζ together is one of the variations).
+
+    The energy has other stationary points in which functions of one l exchange
+    roles, a higher-n function taking the inner orbital's exponent (Kr: ζ_3s = 2.21,
+    ζ_4s = 9.02 gives E = -2744.6034 Eh, below the -2744.5197 Eh of ζ_3s = 7.01,
+    ζ_4s = 2.83; computed by Zeffir). Such a point is a different basis, not the
+    subshell-by-subshell exponents of Clementi & Raimondi; the start from Slater's
+    rules, with each exponent near its own subshell's, reaches theirs (Table I within
+    0.15 % for Z = 2–36, Cr and Cu taken as 3d⁴ 4s² and 3d⁹ 4s², except As 4p,
+    1.6 % off; from their own exponents the optimisation returns to this point).
 
     References
     ----------
@@ -295,8 +431,7 @@ def optimise_exponents(
     subshells = tuple(s for s, _ in configuration.occupations)
     pairs = mixing_pairs(configuration)
     m = len(subshells)
-    expression = hund_energy_expression(configuration)
-    closed_form = StoEnergy(expression, subshells)
+    closed_form = StoEnergy(hund_energy_expression(configuration), subshells)
     lower, upper = math.log(ZETA_MIN), math.log(ZETA_MAX_PER_Z * configuration.Z)
     bounds = [(lower, upper)] * m + [(-MAX_MIXING, MAX_MIXING)] * len(pairs)
     evaluations = 0
@@ -306,46 +441,18 @@ def optimise_exponents(
     def split(x: FloatArray) -> tuple[tuple[float, ...], dict[tuple[int, int], float]]:
         return tuple(float(z) for z in np.exp(x[:m])), dict(zip(pairs, map(float, x[m:]), strict=True))
 
-    def radials_at(x: FloatArray) -> tuple[RadialFunction, ...]:
-        zetas, mixing = split(x)
-        return orthogonalised_radials(subshells, zetas, mixing)
-
-    def energy_terms(x: FloatArray) -> tuple[float, float]:
+    def evaluate(x: FloatArray) -> tuple[float, float, FloatArray]:
         nonlocal evaluations
         if (should_stop is not None and should_stop()) or ambient_should_stop():
             raise OptimisationCancelled("exponent optimisation cancelled", last)
-        zetas, mixing = split(x)
-        kinetic, nuclear, repulsion = closed_form.terms_at(
-            zetas, orthonormal_coefficients(subshells, zetas, mixing))
         evaluations += 1
-        return kinetic, nuclear + repulsion
-
-    def gradient(x: FloatArray) -> FloatArray:
-        out = np.empty_like(x)
-        for i in range(x.size):
-            step = np.zeros_like(x)
-            step[i] = _STEP
-            out[i] = (8 * (sum(energy_terms(x + step)) - sum(energy_terms(x - step)))
-                      - (sum(energy_terms(x + 2 * step)) - sum(energy_terms(x - 2 * step)))) / (12 * _STEP)
-        return out
-
-    def rough_gradient(x: FloatArray) -> FloatArray:
-        """Two-point differences: enough for the Hessian of the Newton polish (its errors
-        change the step, not the point the accurate gradient converges to)."""
-        out = np.empty_like(x)
-        for i in range(x.size):
-            step = np.zeros_like(x)
-            step[i] = _STEP
-            out[i] = (sum(energy_terms(x + step)) - sum(energy_terms(x - step))) / (2 * _STEP)
-        return out
-
-    x = np.concatenate([np.log(np.asarray(_starting_zetas(configuration))), np.zeros(len(pairs))])
+        return energy_and_gradient(closed_form, pairs, x)
 
     def fun(y: FloatArray) -> tuple[float, FloatArray]:
         nonlocal last
-        energy = sum(energy_terms(y))
-        last = OptimisationState(iteration, evaluations, split(y)[0], energy)
-        return energy, gradient(y)
+        kinetic, potential, grad = evaluate(y)
+        last = OptimisationState(iteration, evaluations, split(y)[0], kinetic + potential)
+        return kinetic + potential, grad
 
     def callback(_xk: FloatArray) -> None:
         nonlocal iteration
@@ -356,32 +463,41 @@ def optimise_exponents(
             ambient_report(f"{configuration.spec}: optimising exponents, step {iteration}, "
                            f"E = {last.energy:.8f} Eh")
 
+    x = np.concatenate([np.log(np.asarray(_starting_zetas(configuration))), np.zeros(len(pairs))])
     found = optimize.minimize(
         fun, x, jac=True, method="L-BFGS-B", bounds=bounds, callback=callback,
-        options={"maxiter": 500, "ftol": 1e-14, "gtol": GRADIENT_TOLERANCE / 2, "maxcor": 20},
+        options={"maxiter": 1000, "ftol": 1e-15, "gtol": GRADIENT_TOLERANCE / 4, "maxcor": 20},
     )
     x, message = np.asarray(found.x, dtype=float), str(found.message)
-    # Polish with Newton steps (finite-difference Hessian): L-BFGS-B may stop on a flat
-    # energy slightly short of the gradient tolerance.
-    grad = gradient(x)
-    for _newton in range(6):
+    # Near the optimum the energy changes by less than its rounding, which can stop
+    # L-BFGS-B's line search short of the gradient tolerance; the gradient is still
+    # accurate there, so polish with steps that use it alone.
+    kinetic, potential, grad = evaluate(x)
+    low, high = np.array([lo for lo, _ in bounds]), np.array([hi for _, hi in bounds])
+
+    def step_to(y: FloatArray) -> tuple[FloatArray, FloatArray]:
+        nonlocal kinetic, potential, iteration, last
+        kinetic, potential, g = evaluate(y)
+        iteration += 1
+        last = OptimisationState(iteration, evaluations, split(y)[0], kinetic + potential)
+        if progress is not None:
+            progress(last)
+        return y, g
+
+    # Newton steps, the Hessian from central differences of the gradient.
+    for _newton in range(8):
         if np.all(np.abs(grad) <= GRADIENT_TOLERANCE):
             break
         hessian = np.empty((x.size, x.size))
         for j in range(x.size):
             step = np.zeros_like(x)
             step[j] = _HESSIAN_STEP
-            hessian[:, j] = (rough_gradient(x + step) - rough_gradient(x - step)) / (2 * _HESSIAN_STEP)
+            hessian[:, j] = (evaluate(x + step)[2] - evaluate(x - step)[2]) / (2 * _HESSIAN_STEP)
         hessian = 0.5 * (hessian + hessian.T)
         if np.any(np.linalg.eigvalsh(hessian) <= 0):
             break
-        x = np.clip(x - np.linalg.solve(hessian, grad), [lo for lo, _ in bounds], [hi for _, hi in bounds])
-        grad = gradient(x)
-        iteration += 1
-        if progress is not None:
-            progress(OptimisationState(iteration, evaluations, split(x)[0], sum(energy_terms(x))))
+        x, grad = step_to(np.clip(x - np.linalg.solve(hessian, grad), low, high))
     zetas, mixing = split(x)
-    kinetic, potential = energy_terms(x)
     state = OptimisationState(iteration, evaluations, zetas, kinetic + potential)
     at_bound = np.array([min(abs(v - lo), abs(v - hi)) < 1e-6 for v, (lo, hi) in zip(x, bounds, strict=True)])
     if np.any(at_bound[:m]):
@@ -394,8 +510,8 @@ def optimise_exponents(
         raise OptimisationError(
             f"{configuration.spec}: no stationary point after {iteration} iterations "
             f"(largest |dE/dx| = {np.max(np.abs(grad)):.2e} Eh; {message})", state)
-    return VariationalResult(configuration, zetas, mixing, radials_at(x), kinetic, potential,
-                             tuple(float(g) for g in grad), state)
+    return VariationalResult(configuration, zetas, mixing, orthogonalised_radials(subshells, zetas, mixing),
+                             kinetic, potential, tuple(float(g) for g in grad), state)
 
 
 @dataclass(frozen=True)
@@ -409,17 +525,39 @@ class VariationalModel:
     orthonormal combinations of the Slater-type functions of that l (a minimal basis,
     as Clementi & Raimondi's); the reported ζ is each subshell's own exponent and
     Z_eff = ζn. The total energy is that of the Hund determinant (the M_L = L,
-    M_S = S component of the Hund term); each orbital energy is ⟨φ|F|φ⟩ of its
-    subshell's Fock operator for that energy (:func:`zeffir.core.energy.orbital_energies`),
-    the estimate a minimal basis gives (He: ε = ζ²/2 - Zζ + 5ζ/8). The energy is in
-    closed form (milliseconds per evaluation); an optimisation takes well under a
-    second for light atoms and seconds for heavy ones (Kr about 5 s, Xe about 15 s,
-    the finite-difference gradients needing 4 evaluations per exponent).
+    M_S = S component of the Hund term). Energy, gradient and orbital energies are
+    closed forms (milliseconds per evaluation): an optimisation takes a few
+    hundredths of a second for light atoms and one to two seconds for the heaviest
+    (Xe about 0.4 s, U about 1.5 s).
+
+    Each orbital energy is ⟨φ|F|φ⟩ of its subshell's Fock operator for that energy
+    (:func:`zeffir.core.energy.orbital_energies`; He: ε = ζ²/2 - Zζ + 5ζ/8). For a
+    closed subshell it is exactly minus the energy of removing one electron with all
+    orbitals frozen (the identity behind Koopmans' theorem, Koopmans 1934), which is
+    how it should be read. It is *positive* for some d and f subshells: among the
+    neutral ground states Z = 1–54 the 3d of Cr, Cu and Zn and the 4d of Y, Zr and Pd
+    (Cu 3d +0.51 Eh, where the Hartree–Fock value is -0.4912 Eh, Koga et al. 1999),
+    the 4f or 5d of every lanthanide (and the 4f of Hf and Ta) and the 5f or 6d of
+    most actinides. This is the model, not the definition: with one exponent a d or
+    f function cannot have both the inner part that fixes its nuclear attraction and
+    the outer tail of the Hartree–Fock orbital, so it comes out too compact outside
+    (Zn 3d: ⟨r⁻¹⟩ 1.542 against 1.531 bohr⁻¹, ⟨r⟩ 0.757 against 0.875 bohr with
+    Zeffir's Hartree–Fock model) and repels the other electrons too strongly
+    (F⁰(3d, 3d) 1.194 against 1.07 Eh). Every d electron then costs about 0.9 Eh too
+    much: the model puts Zn⁺ 3d⁹ 4s² 0.37 Eh *below* Zn and Cu 3d⁹ 4s² 0.90 Eh below
+    3d¹⁰ 4s¹, where Hartree–Fock has them 0.56 Eh and 0.014 Eh above (these energies
+    computed by Zeffir). Clementi & Raimondi's Table I exponents for Cr and Cu are
+    indeed those of the 3d⁴ 4s² and 3d⁹ 4s² configurations (this model reproduces
+    them within 0.15 % there, and misses them by 15–21 % for 3d⁵ 4s¹ and 3d¹⁰ 4s¹).
+    Total energies and exponents are what the model is for; its d and f orbital
+    energies are not estimates of ionisation energies.
 
     References
     ----------
-    E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963); J. C. Slater,
-    *Quantum Theory of Atomic Structure* (McGraw-Hill, 1960).
+    E. Clementi and D. L. Raimondi, J. Chem. Phys. 38, 2686 (1963), Table I; J. C.
+    Slater, *Quantum Theory of Atomic Structure* (McGraw-Hill, 1960); T. Koopmans,
+    Physica 1, 104 (1934); T. Koga, K. Kanayama, S. Watanabe and A. J. Thakkar, Int. J.
+    Quantum Chem. 71, 491 (1999) (Hartree–Fock orbital energies).
     """
 
     name: str = "variational"
@@ -427,23 +565,22 @@ class VariationalModel:
     reference: str = "Clementi & Raimondi 1963 (method); Slater 1960"
 
     def build(self, configuration: Configuration) -> OrbitalSet:
-        from zeffir.core.energy import hund_energy_expression, orbital_energies, radial_integrals
+        from zeffir.core.energy import hund_energy_expression
+        from zeffir.core.models._sto_energy import StoEnergy
 
         result = optimise_exponents(configuration)
-        provisional = OrbitalSet(configuration, self.name, tuple(
-            SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n), None, ())
-            for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
-                                                strict=True)))
-        epsilon = orbital_energies(hund_energy_expression(configuration), radial_integrals(provisional))
+        subshells = tuple(s for s, _ in configuration.occupations)
+        epsilon = StoEnergy(hund_energy_expression(configuration), subshells).orbital_energies(
+            result.zetas, orthonormal_coefficients(subshells, result.zetas, result.mixing))
         orbitals = []
-        for (sub, occ), radial, zeta in zip(configuration.occupations, result.radials, result.zetas,
-                                            strict=True):
+        for (sub, occ), radial, zeta, eps in zip(configuration.occupations, result.radials, result.zetas,
+                                                 epsilon, strict=True):
             notes: tuple[str, ...] = ()
             if isinstance(radial, SlaterExpansionRadial):
                 notes = (f"{sub.label}: a combination of this configuration's {sub.label[-1]}-type "
                          "Slater functions (orthonormalised); ζ is the exponent of its own one",)
             orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n),
-                                            epsilon.get(sub), notes))
+                                            float(eps) if occ > 0 else None, notes))
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
                           notes=("total energy: Hund determinant, single-zeta Slater-type functions",),
                           virial_ratio=-result.potential / result.kinetic)
