@@ -53,15 +53,41 @@ def report(name: str, value: float, unit: str, goal: str) -> None:
     print(f"{name}: {value:.3g} {unit} (goal {goal})", flush=True)
 
 
-def main() -> int:
+GROUPS = ("grids", "models", "cli", "window")
+
+
+def main(argv: list[str] | None = None) -> int:
+    """Run every case, or only the groups named on the command line (grids, models, cli, window)."""
+    import argparse
+
+    parser = argparse.ArgumentParser(description="Zeffir benchmarks (ratios and wall times).")
+    parser.add_argument("groups", nargs="*", metavar="GROUP",
+                        help=f"groups to run, from {', '.join(GROUPS)} (default: all)")
+    chosen = set(parser.parse_args(argv).groups or GROUPS)
+    unknown = sorted(chosen - set(GROUPS))
+    if unknown:
+        parser.error(f"unknown group {', '.join(unknown)}; choose from {', '.join(GROUPS)}")
+    baseline = memory_pass_seconds()
+    print(f"baseline: np.multiply(a, b, out=c) over {SIZE}x{SIZE} float64 = {baseline * 1e3:.3f} ms"
+          " (one memory pass)")
+    if "grids" in chosen:
+        grid_cases(baseline)
+    if "models" in chosen:
+        model_cases()
+    if "cli" in chosen:
+        cli_cases()
+    if "window" in chosen:
+        window_cases(baseline)
+    return 0
+
+
+def grid_cases(baseline: float) -> None:
+    """Grid evaluations against the memory-pass baseline, the fast models, parsing, comparison."""
     import sympy
     from sympy.physics.hydrogen import R_nl
 
     from zeffir.core import Plane, build, density_on_plane, orbital_on_plane
 
-    baseline = memory_pass_seconds()
-    print(f"baseline: np.multiply(a, b, out=c) over {SIZE}x{SIZE} float64 = {baseline * 1e3:.3f} ms"
-          " (one memory pass)")
     noise = np.random.default_rng(0).random((SIZE, SIZE))
     exp_time = median_seconds(lambda: np.exp(noise))
     print(f"  for information: np.exp over the same size = {exp_time * 1e3:.3f} ms"
@@ -171,10 +197,6 @@ def main() -> int:
                 for source in four.series())
     many = median_seconds(lambda: compare_radial(four))
     report("compare_radial_four_series", many / alone, "x the four scenes alone", "<= 1.3")
-    model_cases()
-    cli_cases()
-    window_cases(baseline)
-    return 0
 
 
 def model_cases() -> None:
@@ -236,8 +258,12 @@ def cli_cases() -> None:
     # The same one-shot figure with its default kernels against ZEFFIR_NO_NUMBA=1 (plain numpy).
     command = ["figure", "Xe", "--view", "slice", "--quantity", "density", "--resolution", "1024",
                "--out", "xe.npz"]
-    ours = _process_seconds(command, repeats=3)
-    numpy_only = _process_seconds(command, {"ZEFFIR_NO_NUMBA": "1"}, repeats=3)
+    # Interleaved, so that a drift in the machine's load falls on both sides alike.
+    ours_runs, numpy_runs = [], []
+    for _ in range(7):
+        ours_runs.append(_process_seconds(command, repeats=1))
+        numpy_runs.append(_process_seconds(command, {"ZEFFIR_NO_NUMBA": "1"}, repeats=1))
+    ours, numpy_only = statistics.median(ours_runs), statistics.median(numpy_runs)
     report("cli_slice_1024_vs_numpy", ours / numpy_only, "x the numpy-only process", "<= 1.0")
     print(f"  ({ours:.2f} s against {numpy_only:.2f} s)", flush=True)
 

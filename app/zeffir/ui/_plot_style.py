@@ -21,7 +21,7 @@ from typing import Final
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QFont, QPen
+from PySide6.QtGui import QColor, QFont, QPen
 
 from zeffir.scene import LINE_COLOURS, QUANTITIES, colour_stops, subshell_colour
 
@@ -34,8 +34,10 @@ __all__ = [
     "SUBSHELL_WIDTH",
     "TOTAL_COLOUR",
     "TOTAL_WIDTH",
+    "GridAxis",
     "colour_map",
     "format_number",
+    "framed_axes",
     "label_style",
     "make_pen",
     "quantity_tooltip",
@@ -92,6 +94,57 @@ def tick_font(points: float = 9.0) -> QFont:
     return font
 
 
+#: The plots' ground, over which grid colours are mixed in advance.
+_GROUND: Final = (255, 255, 255)
+
+
+class GridAxis(pg.AxisItem):
+    """An axis whose grid lines are drawn in opaque colours that look translucent.
+
+    pyqtgraph draws grid lines in the tick colour with a small alpha. Qt's raster
+    engine blends translucent lines pixel by pixel, about fifteen times slower than
+    opaque ones (40 plot-high lines: 23 ms against 1.4 ms, measured here), which made
+    the grid the most expensive part of a redrawn plot. The grid lies under every
+    curve, on the white ground, so the colour that alpha blending would produce there
+    is computed once and drawn opaque: the picture is the same.
+    """
+
+    def __init__(self, *args: object, **kwargs: object) -> None:
+        super().__init__(*args, **kwargs)
+        self._opaque: dict[tuple[int, int, int, int, float], QPen] = {}
+
+    def generateDrawSpecs(self, p: object) -> object:
+        specs = super().generateDrawSpecs(p)
+        if specs is None or self.grid is False:
+            return specs
+        axis_spec, tick_specs, text_specs = specs
+        return axis_spec, [(self._opaque_pen(pen), start, stop)
+                           for pen, start, stop in tick_specs], text_specs
+
+    def _opaque_pen(self, pen: QPen) -> QPen:
+        colour = pen.color()
+        alpha = colour.alpha()
+        if alpha == 255 or pen.brush().style() != Qt.BrushStyle.SolidPattern:
+            return pen
+        key = (colour.red(), colour.green(), colour.blue(), alpha, pen.widthF())
+        opaque = self._opaque.get(key)
+        if opaque is None:
+            weight = alpha / 255.0
+            mixed = [round(weight * c + (1.0 - weight) * g)
+                     for c, g in zip(key[:3], _GROUND, strict=True)]
+            opaque = QPen(pen)
+            opaque.setColor(QColor(*mixed))
+            self._opaque[key] = opaque
+        return opaque
+
+
+def framed_axes(**special: pg.AxisItem) -> dict[str, pg.AxisItem]:
+    """The four axes of a plot (``axisItems`` of a PlotWidget), grid-capable; ``special``
+    replaces the axis of a side (e.g. ``bottom=`` a subclass of :class:`GridAxis`)."""
+    return {side: special.get(side) or GridAxis(orientation=side)
+            for side in ("left", "bottom", "top", "right")}
+
+
 def style_plot(plot: pg.PlotItem, grid: bool = True) -> None:
     """Dark axes on all four sides (values on the left and bottom only) and a faint grid."""
     for side in ("left", "bottom", "top", "right"):
@@ -114,7 +167,12 @@ def style_plot(plot: pg.PlotItem, grid: bool = True) -> None:
             else:
                 axis.setWidth(4)
     if grid:
-        plot.showGrid(x=True, y=True, alpha=0.13)
+        # The left and bottom axes draw the grid (the top and right ones would only
+        # draw the same lines again); the top and right are plain frame lines.
+        plot.getAxis("left").setGrid(int(0.13 * 255))
+        plot.getAxis("bottom").setGrid(int(0.13 * 255))
+        for side in ("top", "right"):
+            plot.getAxis(side).setStyle(tickLength=0)
         # The axes draw the grid; put them behind the view box so the grid runs under
         # the curves and the legend instead of over them.
         for side in ("left", "bottom", "top", "right"):

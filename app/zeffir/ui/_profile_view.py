@@ -30,6 +30,7 @@ from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     MUTED_TEXT,
     PALETTE,
+    framed_axes,
     label_style,
     make_pen,
     split_label,
@@ -77,7 +78,7 @@ class ProfileView(QWidget):
         self._title.setStyleSheet("QLabel { background: white; }")
         self._title.setContentsMargins(4, 4, 4, 0)
 
-        self._plot_widget = pg.PlotWidget(background="w")
+        self._plot_widget = pg.PlotWidget(background="w", axisItems=framed_axes())
         self._plot: pg.PlotItem = self._plot_widget.getPlotItem()
         style_plot(self._plot, grid=True)
         self._zero_line = pg.InfiniteLine(pos=0.0, angle=0, movable=False,

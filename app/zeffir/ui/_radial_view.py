@@ -20,7 +20,9 @@ from zeffir.ui._plot_style import (
     MUTED_TEXT,
     SUBSHELL_WIDTH,
     TOTAL_WIDTH,
+    GridAxis,
     format_number,
+    framed_axes,
     label_style,
     make_pen,
     quantity_tooltip,
@@ -29,6 +31,7 @@ from zeffir.ui._plot_style import (
     style_plot,
     subshell_style,
 )
+from zeffir.ui._polyline import drawn_subset
 from zeffir.ui._view_frame import ViewFrame, fitted_line
 
 __all__ = ["RadialView"]
@@ -53,7 +56,7 @@ _COVER_ROWS: Final = 32
 _LOG_LIMIT: Final = 300.0
 
 
-class _RadiusAxis(pg.AxisItem):
+class _RadiusAxis(GridAxis):
     """The r axis. On a log scale only decades are labelled (1, 2, 5 within each decade
     when under two decades show); pyqtgraph would otherwise label every minor tick."""
 
@@ -111,7 +114,7 @@ class RadialView(QWidget):
         self._empty_message = DEFAULT_EMPTY_MESSAGE
 
         self._plot_widget = pg.PlotWidget(background="w",
-                                          axisItems={"bottom": _RadiusAxis(orientation="bottom")})
+                                          axisItems=framed_axes(bottom=_RadiusAxis(orientation="bottom")))
         self._plot_widget.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Expanding)
         self._plot: pg.PlotItem = self._plot_widget.getPlotItem()
         style_plot(self._plot)
@@ -139,6 +142,10 @@ class RadialView(QWidget):
 
         self._plot_widget.scene().sigMouseMoved.connect(self._on_mouse_moved)
         self._plot.getViewBox().sigResized.connect(self._on_resized)
+        # The curves draw a subset of their samples chosen for the current pixel scale.
+        self._subset_scale: tuple[float, float] | None = None
+        self._plot.getViewBox().sigRangeChanged.connect(self._draw_subsets)
+        self._plot.getViewBox().sigResized.connect(self._draw_subsets)
         self._plot_widget.viewport().installEventFilter(self)
         self.setMinimumSize(200, 170)  # two rows of panels fit 720 px
         self._show_message()
@@ -215,7 +222,9 @@ class RadialView(QWidget):
             self._add_legend_row(sample, html.escape(name))
         self._draw_markers(scene)
         self._fit_legend_size()
+        self._subset_scale = None
         self._fit_range()
+        self._draw_subsets()
         self._place_legend()
         self._hide_cursor()
 
@@ -255,7 +264,6 @@ class RadialView(QWidget):
                 keep = x > 0
                 x, y = x[keep], y[keep]
             item, colour, *_ = self._curves[curve.label]
-            item.setData(x, y)
             self._curves[curve.label] = (item, colour, x, y)
             negative = negative or bool(y.size and np.nanmin(y) < 0)
         self._zero_line.setVisible(negative)
@@ -264,7 +272,9 @@ class RadialView(QWidget):
         self._marker_items.clear()
         self._markers.clear()
         self._draw_markers(scene, legend=False)
+        self._subset_scale = None  # new data: the drawn subsets are out of date
         self._fit_range()
+        self._draw_subsets()
         self._place_legend()
         self._hide_cursor()
 
@@ -562,6 +572,32 @@ class RadialView(QWidget):
         self._plot.setRange(xRange=(x0 - 0.012 * x_span, x1),
                             yRange=(y0 - 0.025 * y_span, y1 + 0.06 * y_span), padding=0)
 
+    def _draw_subsets(self, *_args: object) -> None:
+        """Give each curve item the samples that matter at the current pixel scale.
+
+        The full samples stay in ``_curves`` for readouts, bounds and exports; the items
+        draw :func:`~zeffir.ui._polyline.drawn_subset` of them (about 5 % of a radial
+        curve's points, within 0.1 px of it), chosen again when the scale changes
+        (a zoom or a resize, not a pan).
+        """
+        box = self._plot.getViewBox()
+        (x0, x1), (y0, y1) = box.viewRange()
+        width, height = box.width(), box.height()
+        if width < 2 or height < 2 or x1 <= x0 or y1 <= y0:
+            scale = None  # not laid out yet: draw every sample
+        else:
+            scale = (width / (x1 - x0), height / (y1 - y0))
+        if scale is not None and scale == self._subset_scale:
+            return
+        self._subset_scale = scale
+        for item, _colour, x, y in self._curves.values():
+            if scale is None:
+                item.setData(x, y)
+                continue
+            with np.errstate(invalid="ignore"):
+                chosen = drawn_subset(self._view_x_array(x) * scale[0], y * scale[1])
+            item.setData(x[chosen], y[chosen])
+
     def _view_x_array(self, x: np.ndarray) -> np.ndarray:
         if self._scene is not None and self._scene.log_r:
             with np.errstate(divide="ignore", invalid="ignore"):
@@ -688,7 +724,15 @@ class RadialView(QWidget):
     # -- read-back (tests, exports of what is on screen) ----------------------------------
 
     def curve_data(self) -> dict[str, tuple[np.ndarray, np.ndarray]]:
-        """The x and y each curve item holds, by curve label, in data units (r, not log r)."""
+        """The samples of each curve, by curve label, in data units (r, not log r).
+
+        These are every sample of the scene's curve (what readouts and exports use); the
+        item on screen draws the subset :meth:`drawn_data` gives.
+        """
+        return {label: (x, y) for label, (_item, _colour, x, y) in self._curves.items()}
+
+    def drawn_data(self) -> dict[str, tuple[np.ndarray, np.ndarray]]:
+        """The x and y each curve item draws, by curve label, in data units."""
         result = {}
         for label, (item, *_) in self._curves.items():
             x, y = item.getOriginalDataset()
