@@ -158,8 +158,10 @@ def _hole_scene(base: SliceScene, hole: FloatArray, title: str, label: str, cont
     With ``robust`` the scale ends at the 99.5th percentile of the depth, like the
     densities', so the hole near a nucleus does not wash out the rest.
     """
-    finite = hole[np.isfinite(hole)]
-    deepest = float(-np.min(finite)) if finite.size else 1.0
+    deepest = float(-np.min(hole))
+    if not np.isfinite(deepest):  # a non-finite sample (rare): the depth of the finite ones
+        finite = hole[np.isfinite(hole)]
+        deepest = float(-np.min(finite)) if finite.size else 1.0
     sample = -hole[::4, ::4]
     sample = sample[np.isfinite(sample)]
     if robust and sample.size:
@@ -179,9 +181,8 @@ def pair_scenes(state: ViewState) -> PairScenes:
     """The pair view of ``state``: reference electron ``state.pair``, plane ``state.slice``."""
     from zeffir.core.pairs import (
         DOWN,
-        exchange_hole_on_plane,
         hole_integral,
-        pair_density_on_plane,
+        reference_panels_on_plane,
         spin_density,
     )
 
@@ -201,9 +202,9 @@ def pair_scenes(state: ViewState) -> PairScenes:
     plane = plane_of(state.slice)
     unit = state.length_unit
     density = length_factor(unit, -3.0)
-    same = pair_density_on_plane(orbitals, plane, r1, (spin, spin), determinant) / rho * density
-    other = pair_density_on_plane(orbitals, plane, r1, (spin, -spin), determinant) / rho * density
-    hole = exchange_hole_on_plane(orbitals, plane, r1, spin, determinant) * density
+    panels = reference_panels_on_plane(orbitals, plane, r1, spin, determinant)
+    same, other, hole = (panels.same_spin * density, panels.opposite_spin * density,
+                         panels.exchange_hole * density)
     scale = length_factor(unit, 1.0)
     where = ", ".join(f"{c * scale:g}" for c in state.pair.reference)
     symbol = length_symbol(unit)

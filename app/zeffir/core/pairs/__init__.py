@@ -18,9 +18,11 @@ from zeffir.core.pairs._determinant import (
 )
 from zeffir.core.pairs._hole_sum import hole_integral
 from zeffir.core.pairs._on_plane import (
+    ReferencePanels,
     conditional_density_on_plane,
     exchange_hole_on_plane,
     pair_density_on_plane,
+    reference_panels_on_plane,
     spin_density_on_plane,
 )
 from zeffir.core.pairs._one_matrix import (
@@ -43,6 +45,7 @@ __all__ = [
     "Coupling",
     "Determinant",
     "DeterminantError",
+    "ReferencePanels",
     "SpinOrbital",
     "TwoElectronState",
     "complex_solid_harmonic",
@@ -58,6 +61,7 @@ __all__ = [
     "pair_density_on_plane",
     "parse_determinant",
     "radial_overlap",
+    "reference_panels_on_plane",
     "solid_legendre",
     "spin_density",
     "spin_density_on_plane",

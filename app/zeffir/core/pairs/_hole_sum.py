@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+from functools import lru_cache
 from typing import TYPE_CHECKING
 
 import numpy as np
@@ -16,17 +17,31 @@ if TYPE_CHECKING:
 __all__ = ["hole_integral"]
 
 
+@lru_cache(maxsize=8)
+def _gauss_legendre(points: int) -> tuple[FloatArray, FloatArray]:
+    """Gauss–Legendre nodes and weights on (−1, 1), kept (leggauss solves an eigenproblem)."""
+    nodes, weights = leggauss(points)
+    nodes.setflags(write=False)
+    weights.setflags(write=False)
+    return nodes, weights
+
+
 def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: Determinant,
-                  radial_points: int = 96, polar_points: int = 32) -> float:
+                  radial_points: int = 96, polar_points: int | None = None) -> float:
     """∫ h_x^σ(r1; r2) d³r2 by a product quadrature centred on the nucleus.
 
     Notes
     -----
     r = s·x/(1 − x) with x from Gauss–Legendre on (0, 1) (s the largest ⟨r⟩ of the
     occupied subshells), Gauss–Legendre in cos θ and the trapezoid rule in φ
-    (2·``polar_points`` nodes, exact for trigonometric polynomials of the degrees
-    met here). The sum rule ∫ h_x = −1 holds for every r1 (Parr & Yang 1989, §2.4),
-    so the value shown is a check of the numbers on screen.
+    (2·``polar_points`` nodes). The angular rules are exact: on a sphere |γ(r1, r2)|²
+    is a polynomial of degree ≤ 2·l_max in the direction of r2, so after the φ sum
+    (exact for |m − m'| < 2·``polar_points``) a polynomial of degree ≤ 2·l_max in
+    cos θ remains, which Gauss–Legendre integrates exactly with l_max + 1 nodes. The
+    default takes l_max + 3 polar nodes (32 directions for a p shell instead of the
+    2048 of a fixed rule), so only the radial rule approximates. The sum rule
+    ∫ h_x = −1 holds for every r1 (Parr & Yang 1989, §2.4), so the value shown is a
+    check of the numbers on screen.
 
     References
     ----------
@@ -48,12 +63,14 @@ def hole_integral(orbitals: OrbitalSet, r1: FloatArray, spin: int, determinant: 
     True
     """
     scale = max(o.radial.expectation(1) for o in orbitals.orbitals)
-    x, wx = leggauss(radial_points)
+    x, wx = _gauss_legendre(radial_points)
     x = 0.5 * (x + 1.0)
     wx = 0.5 * wx
     r = scale * x / (1.0 - x)
     wr = scale * wx / (1.0 - x) ** 2 * r * r
-    t, wt = leggauss(polar_points)
+    if polar_points is None:
+        polar_points = max(o.l for o in orbitals.orbitals) + 3
+    t, wt = _gauss_legendre(polar_points)
     phi = np.linspace(0.0, 2.0 * np.pi, 2 * polar_points, endpoint=False)
     wphi = 2.0 * np.pi / phi.size
     sin_t = np.sqrt(1.0 - t * t)

@@ -16,7 +16,7 @@ from __future__ import annotations
 
 import math
 from functools import lru_cache
-from typing import Any, Final
+from typing import Any, Final, NamedTuple
 
 import numpy as np
 import numpy.typing as npt
@@ -48,9 +48,11 @@ from zeffir.core.pairs._one_matrix import (
 )
 
 __all__ = [
+    "ReferencePanels",
     "conditional_density_on_plane",
     "exchange_hole_on_plane",
     "pair_density_on_plane",
+    "reference_panels_on_plane",
     "spin_density_on_plane",
 ]
 
@@ -480,3 +482,76 @@ def pair_density_on_plane(
     if rest is not None:
         out += rho1 * rest
     return out
+
+
+class ReferencePanels(NamedTuple):
+    """What the other electrons do, given one of spin σ at r1, on a plane (bohr⁻³)."""
+
+    #: ρ2^{σσ}(r1, r2)/ρ^σ(r1) = ρ^σ(r2) + h_x^σ(r1; r2): the other electrons of spin σ.
+    same_spin: FloatArray
+    #: ρ2^{σ,−σ}(r1, r2)/ρ^σ(r1) = ρ^{−σ}(r2): the electrons of the other spin.
+    opposite_spin: FloatArray
+    #: h_x^σ(r1; r2) = −|γ^σ(r1, r2)|²/ρ^σ(r1).
+    exchange_hole: FloatArray
+    #: ρ^σ(r1).
+    reference_density: float
+
+
+def reference_panels_on_plane(
+    orbitals: OrbitalSet,
+    plane: Plane,
+    r1: npt.ArrayLike,
+    spin: int = UP,
+    determinant: Determinant | None = None,
+) -> ReferencePanels:
+    """Both conditional pair densities and the exchange hole for one reference electron.
+
+    Parameters
+    ----------
+    orbitals : OrbitalSet
+    plane : Plane
+        Where r2 runs.
+    r1 : array_like, shape (3,)
+        The reference electron (bohr); ρ^σ(r1) must be positive.
+    spin : int
+        Its spin σ, +1 (α) or -1 (β).
+    determinant : Determinant, optional
+        The Hund determinant by default.
+
+    Returns
+    -------
+    ReferencePanels
+        The same numbers as :func:`pair_density_on_plane` (both spin pairs) divided by
+        ρ^σ(r1) and :func:`exchange_hole_on_plane`, with |γ^σ(r1, r2)|² formed once:
+        for a single determinant ρ2^{σσ}(r1, r2) = ρ^σ(r1)ρ^σ(r2) − |γ^σ|² and
+        ρ2^{σ,−σ} = ρ^σ(r1)ρ^{−σ}(r2).
+
+    References
+    ----------
+    R. McWeeny, *Methods of Molecular Quantum Mechanics*, 2nd ed. (1989), §5.5;
+    R. G. Parr and W. Yang (1989), §2.4.
+
+    Examples
+    --------
+    The other same-spin electrons are the same-spin density with the hole dug out:
+
+    >>> import numpy as np
+    >>> from zeffir.core import Plane, build
+    >>> nitrogen, plane = build("N"), Plane.named("xz", extent=2.0, resolution=9)
+    >>> panels = reference_panels_on_plane(nitrogen, plane, (0.3, 0.0, 0.4))
+    >>> rho_up = spin_density_on_plane(nitrogen, plane, +1)
+    >>> bool(np.allclose(panels.same_spin, rho_up + panels.exchange_hole))
+    True
+    """
+    _check_spin(spin)
+    point = _reference_point(r1)
+    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == spin]
+    data = _plane_data(orbitals, plane)
+    terms, rho = _one_matrix_terms(blocks, plane, point, data)
+    if not rho > 0:
+        raise _no_density(spin, point)
+    hole = _modulus_squared(plane, data, terms, -1.0 / rho, np.zeros((1, 1)), 0.0)
+    same = spin_density_on_plane(orbitals, plane, spin, determinant)
+    same += hole
+    opposite = spin_density_on_plane(orbitals, plane, -spin, determinant)
+    return ReferencePanels(same, opposite, hole, rho)
