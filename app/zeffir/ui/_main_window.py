@@ -548,12 +548,12 @@ class MainWindow(QMainWindow):
     # -- state → widgets ------------------------------------------------------------
     @Slot(object, object)
     def _on_state_changed(self, new: ViewState, old: ViewState) -> None:
-        self._show_state(new)
-        if new.length_unit != old.length_unit:
+        # The picture is asked for first, so the worker computes it while this thread
+        # brings the controls up to date; the panels it goes to exist before it is asked.
+        if new.view in self._trios:
+            self._trios[new.view].set_panels(*_panel_counts(new))
+        if new.length_unit != old.length_unit:  # the segment of a profile, before its result
             self._rescale_profile(old.length_unit, new.length_unit)
-        if (new.left, new.length_unit, _table_versus(new)) != (
-                old.left, old.length_unit, _table_versus(old)):
-            self._request_table(new.left)
         drawn = self._drawn.get(new.view)
         if new.view != old.view or view_inputs(new) != view_inputs(old):
             if drawn is None or view_inputs(drawn) != view_inputs(new):
@@ -561,6 +561,10 @@ class MainWindow(QMainWindow):
             else:  # back to what the picture already shows: nothing to compute
                 self._asked[new.view] = new
                 self._trouble.pop(new.view, None)
+        self._show_state(new)
+        if (new.left, new.length_unit, _table_versus(new)) != (
+                old.left, old.length_unit, _table_versus(old)):
+            self._request_table(new.left)
         self._refresh_banner()
 
     def _show_state(self, state: ViewState) -> None:

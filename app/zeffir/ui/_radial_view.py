@@ -144,6 +144,7 @@ class RadialView(QWidget):
         self._plot.getViewBox().sigResized.connect(self._on_resized)
         # The curves draw a subset of their samples chosen for the current pixel scale.
         self._subset_scale: tuple[float, float] | None = None
+        self._bounds_cache: tuple[tuple[int, int], tuple[float, float, float, float] | None] | None = None
         self._plot.getViewBox().sigRangeChanged.connect(self._draw_subsets)
         self._plot.getViewBox().sigResized.connect(self._draw_subsets)
         self._plot_widget.viewport().installEventFilter(self)
@@ -223,6 +224,7 @@ class RadialView(QWidget):
         self._draw_markers(scene)
         self._fit_legend_size()
         self._subset_scale = None
+        self._bounds_cache = None
         self._fit_range()
         self._draw_subsets()
         self._place_legend()
@@ -273,6 +275,7 @@ class RadialView(QWidget):
         self._markers.clear()
         self._draw_markers(scene, legend=False)
         self._subset_scale = None  # new data: the drawn subsets are out of date
+        self._bounds_cache = None
         self._fit_range()
         self._draw_subsets()
         self._place_legend()
@@ -312,6 +315,7 @@ class RadialView(QWidget):
         self._frame.show_message(self._empty_message)
 
     def _clear_drawing(self) -> None:
+        self._bounds_cache = None
         for item, *_ in self._curves.values():
             self._plot.removeItem(item)
         for marker in self._marker_items:
@@ -534,7 +538,19 @@ class RadialView(QWidget):
         return found
 
     def _data_bounds(self) -> tuple[float, float, float, float] | None:
-        """(x0, x1, y0, y1) of the drawn curves, x in view coordinates (log10 r on a log axis)."""
+        """(x0, x1, y0, y1) of the drawn curves, x in view coordinates (log10 r on a log axis).
+
+        Kept until the curves change (linked views ask for each other's several times a
+        redraw).
+        """
+        key = (id(self._scene), len(self._curves))
+        if self._bounds_cache is not None and self._bounds_cache[0] == key:
+            return self._bounds_cache[1]
+        bounds = self._measure_bounds()
+        self._bounds_cache = (key, bounds)
+        return bounds
+
+    def _measure_bounds(self) -> tuple[float, float, float, float] | None:
         boxes = []
         for _, _, x, y in self._curves.values():
             ok = np.isfinite(x) & np.isfinite(y)
@@ -569,8 +585,12 @@ class RadialView(QWidget):
         # when they would reach past the plot's edge.
         x_span = x1 - x0
         y_span = (y1 - y0) or 1.0
-        self._plot.setRange(xRange=(x0 - 0.012 * x_span, x1),
-                            yRange=(y0 - 0.025 * y_span, y1 + 0.06 * y_span), padding=0)
+        x_range = (x0 - 0.012 * x_span, x1)
+        y_range = (y0 - 0.025 * y_span, y1 + 0.06 * y_span)
+        shown = self._plot.getViewBox().viewRange()
+        if np.allclose(shown, (x_range, y_range), rtol=1e-12, atol=0.0):
+            return  # already showing exactly this (a refit after the same data)
+        self._plot.setRange(xRange=x_range, yRange=y_range, padding=0)
 
     def _draw_subsets(self, *_args: object) -> None:
         """Give each curve item the samples that matter at the current pixel scale.

@@ -10,6 +10,7 @@ mode runs requests at once on the calling thread, for tests and headless use.
 
 from __future__ import annotations
 
+import sys
 import threading
 import traceback
 from collections.abc import Callable
@@ -18,6 +19,9 @@ from typing import Any
 from PySide6.QtCore import QObject, QThread, Signal, Slot
 
 __all__ = ["Cancelled", "SceneWorker"]
+
+#: Longest time (s) one thread runs Python before the other may take the lock.
+_SWITCH_INTERVAL = 0.001
 
 
 class Cancelled(Exception):
@@ -95,6 +99,11 @@ class SceneWorker(QObject):
         self._runner.progress.connect(self.progress)
         self._runner.failed.connect(self._on_failed)
         if not synchronous:
+            # The two threads share the interpreter lock. At Python's default switch
+            # interval (5 ms) a job handed over while the GUI thread runs Python (the
+            # controls taking the new state) waits up to a whole interval to start, and
+            # its result waits again to be shown; 1 ms keeps a hand-off within a frame.
+            sys.setswitchinterval(min(sys.getswitchinterval(), _SWITCH_INTERVAL))
             self._thread = QThread()
             self._thread.setObjectName("zeffir-worker")
             self._runner.moveToThread(self._thread)
