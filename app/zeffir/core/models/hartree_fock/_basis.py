@@ -102,11 +102,18 @@ def default_basis(configuration: Configuration) -> EvenTemperedBasis:
     higher ones are refused by ``MAX_COEFFICIENT_SUM`` or ``VIRIAL_TOLERANCE`` (in
     ``_checks``); either way the run ends with a
     :class:`~zeffir.core.models.hartree_fock.HartreeFockError` naming the reason.
+    Choosing each occupied orbital by maximum overlap with the previous iteration's
+    (Gilbert, Besley and Gill 2008) instead of by its node count does not extend the
+    range: measured here from the bare-nucleus start, He 1s1 5s1 and 1s1 6s1 then
+    "converge" to the 1s 4s energy (−2.036436 Eh), He 1s1 4s1 to the 1s 3s one
+    (−2.068485 Eh), and Na [Ne] 5s1, which converges by node count, stalls; the
+    node-count choice stays.
 
     References
     ----------
     K. Ruedenberg, R. C. Raffenetti and R. D. Bardo, in *Energy, Structure and
-    Reactivity* (Wiley, 1973) (even-tempered bases).
+    Reactivity* (Wiley, 1973) (even-tempered bases); A. T. B. Gilbert, N. A. Besley
+    and P. M. W. Gill, J. Phys. Chem. A 112, 13164 (2008) (maximum overlap method).
 
     Examples
     --------
