@@ -272,3 +272,30 @@ def test_anions_start_in_the_reduced_basis_and_converge():
 def test_an_unbound_anion_is_refused_with_the_reason():
     with pytest.raises(HartreeFockError, match=r"Mg-: .*extra electron is not bound"):
         solve(parse_spec("Mg-"))
+
+
+def test_a_rydberg_orbital_out_of_reach_fails_the_same_way_and_says_what_to_try():
+    # n − l = 5 above three empty s subshells: the iteration cannot converge in this basis
+    # (see _basis.default_basis). It must say which orbital, why, and what to try, and the
+    # iteration is deterministic, so two runs give the same words and numbers.
+    from zeffir.core import ZeffirError, build
+
+    messages = []
+    for _ in range(2):
+        with pytest.raises(ZeffirError) as caught:
+            build("He 1s1 5s1", "hartree-fock")
+        messages.append(str(caught.value))
+    assert messages[0] == messages[1]
+    text = messages[0]
+    assert "no self-consistency" in text
+    assert "the 5s orbital lies above the empty 2s, 3s, 4s" in text
+    assert "Try a lower n" in text and "4s" in text and "slater or clementi" in text
+
+
+def test_the_rydberg_hint_is_not_given_where_it_does_not_apply():
+    from zeffir.core import parse_spec
+    from zeffir.core.models.hartree_fock._checks import _rydberg_hint
+
+    assert _rydberg_hint(parse_spec("He 1s1 4s1")) == ""  # n − l = 4 converges
+    assert _rydberg_hint(parse_spec("Xe")) == ""  # nothing empty below any subshell
+    assert "6s" in _rydberg_hint(parse_spec("Na [Ne] 6s1"))

@@ -58,6 +58,31 @@ def _anion_hint(configuration: Configuration) -> str:
 
 
 
+def _rydberg_hint(configuration: Configuration) -> str:
+    """What a failed run of an excited configuration means, and what to try instead.
+
+    A subshell nl above an empty one of the same l (He 1s1 5s1: the 5s above empty 2s,
+    3s, 4s) must keep n − l − 1 radial nodes while the orbitals below it stay empty;
+    from n − l = 5 on the nodeless Slater-type basis cannot hold it apart from them
+    (see ``_basis.default_basis``).
+    """
+    occupied = {(sub.n, sub.l) for sub, w in configuration.occupations if w > 0}
+    for sub, w in configuration.occupations:
+        if w <= 0:
+            continue
+        empty_below = [n for n in range(sub.l + 1, sub.n) if (n, sub.l) not in occupied]
+        if empty_below and sub.n - sub.l >= 5:
+            name = f"{sub.n}{'spdfghik'[sub.l]}"
+            letter = "spdfghik"[sub.l]
+            below = ", ".join(f"{n}{letter}" for n in empty_below)
+            return (f"; the {name} orbital lies above the empty {below}: with {sub.n - sub.l} radial "
+                    f"lobes the Slater-type basis cannot keep it apart from the empty orbitals below "
+                    f"it (it keeps trading places with them). Try a lower n (n − l ≤ 4, e.g. "
+                    f"{name.replace(str(sub.n), str(sub.l + 4), 1)}), or the slater or clementi model "
+                    f"for this configuration")
+    return ""
+
+
 def _check_trustworthy(configuration: Configuration, coefficients: dict[int, FloatArray],
                        density: dict[int, FloatArray], core: dict[int, FloatArray],
                        weight: dict[int, float], state: SCFState) -> None:

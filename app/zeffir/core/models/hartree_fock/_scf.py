@@ -16,7 +16,7 @@ import numpy as np
 from zeffir.core._cancel import report_progress as ambient_report
 from zeffir.core._cancel import should_stop as ambient_should_stop
 from zeffir.core.config import Configuration
-from zeffir.core.models.hartree_fock._checks import _anion_hint
+from zeffir.core.models.hartree_fock._checks import _anion_hint, _rydberg_hint
 from zeffir.core.models.hartree_fock._matrices import _Setup
 from zeffir.core.models.hartree_fock._result import HartreeFockCancelled, HartreeFockError, SCFState
 from zeffir.core.orbitals import FloatArray
@@ -191,7 +191,7 @@ def _diis(history: list[tuple[dict[int, FloatArray], FloatArray]], ls: list[int]
 def _no_convergence(configuration: Configuration, max_iterations: int,
                     state: SCFState | None) -> HartreeFockError:
     """The error for a run that ran out of iterations, with the last residual."""
-    hint = _anion_hint(configuration)
+    hint = _anion_hint(configuration) or _rydberg_hint(configuration)
     return HartreeFockError(
         f"{configuration.spec}: no self-consistency after {max_iterations} iterations "
         f"(last orbital-gradient residual {state.residual if state else math.nan:.2e}, "
