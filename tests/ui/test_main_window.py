@@ -198,11 +198,20 @@ def test_slice_readout_maps_plane_coordinates_to_xyz(window):
     assert view._point_of(1.0, 2.0) == pytest.approx((1.0, 0.5, 2.0))  # the xz plane at y = 0.5
 
 
-def test_cancel_hides_the_progress_indicator(window):
+def test_cancel_hides_the_progress_indicator(window, qtbot):
     window._on_busy(True)
-    assert not window.progress.isHidden()
+    assert window.progress.isHidden()  # not for work that ends within a frame or two
+    qtbot.waitUntil(lambda: not window.progress.isHidden(), timeout=2000)
+    assert not window.cancel_button.isHidden()
     window.cancel_button.click()
-    assert window.progress.isHidden()
+    assert window.progress.isHidden() and window.cancel_button.isHidden()
+
+
+def test_quick_work_never_shows_the_busy_indicator(window, qtbot):
+    window._on_busy(True)
+    window._on_busy(False)
+    qtbot.wait(250)  # past the delay
+    assert window.progress.isHidden() and window.cancel_button.isHidden()
 
 
 def test_pair_view_shows_densities_and_hole_and_click_moves_the_reference(window):

@@ -59,6 +59,8 @@ __all__ = ["MainWindow"]
 
 #: Contour lines are traced this long after a new slice image (so the image paints first).
 CONTOUR_DELAY_MS = 25
+#: Work that lasts longer than this (ms) shows the busy indicator and the Cancel button.
+BUSY_DELAY_MS = 150
 #: Pixels a panel's frame takes across and down (axes, colour bar; title, read-out).
 PANEL_FRAME: tuple[float, float] = (110.0, 130.0)
 #: A view still computing says so on its picture after this long (quick redraws stay quiet).
@@ -443,6 +445,10 @@ class MainWindow(QMainWindow):
         layout.addWidget(self.atom_bar)
         layout.addWidget(body, 1)
         self.setCentralWidget(central)
+        self._busy_timer = QTimer(self)
+        self._busy_timer.setSingleShot(True)
+        self._busy_timer.setInterval(BUSY_DELAY_MS)
+        self._busy_timer.timeout.connect(lambda: self._show_busy(True))
         self.progress = QProgressBar()
         self.progress.setRange(0, 0)
         self.progress.setMaximumWidth(160)
@@ -766,6 +772,17 @@ class MainWindow(QMainWindow):
 
     @Slot(bool)
     def _on_busy(self, active: bool) -> None:
+        # The indicator and Cancel appear only for work that lasts (BUSY_DELAY_MS): a
+        # picture redrawn within a frame neither flickers them nor relays out the status
+        # bar twice per change.
+        if active:
+            if self.progress.isHidden() and not self._busy_timer.isActive():
+                self._busy_timer.start()
+            return
+        self._busy_timer.stop()
+        self._show_busy(False)
+
+    def _show_busy(self, active: bool) -> None:
         self.progress.setVisible(active)
         self.cancel_button.setVisible(active)
 
