@@ -203,8 +203,10 @@ def pair_scenes(state: ViewState) -> PairScenes:
     unit = state.length_unit
     density = length_factor(unit, -3.0)
     panels = reference_panels_on_plane(orbitals, plane, r1, spin, determinant)
-    same, other, hole = (panels.same_spin * density, panels.opposite_spin * density,
-                         panels.exchange_hole * density)
+    same, other, hole = panels.same_spin, panels.opposite_spin, panels.exchange_hole
+    if density != 1.0:  # the arrays are this call's own: scaled in place
+        for values in (same, other, hole):
+            values *= density
     scale = length_factor(unit, 1.0)
     where = ", ".join(f"{c * scale:g}" for c in state.pair.reference)
     symbol = length_symbol(unit)

@@ -180,6 +180,7 @@ class SliceView(QWidget):
         self._marker = pg.ScatterPlotItem(size=13, symbol="o", pen=make_pen("#e6007e", 1.6),
                                           brush=None)
         self._marker.setZValue(15)
+        self._marker.hide()  # shown with a scene's marker
         self._plot.addItem(self._marker, ignoreBounds=True)
         # Two colour bars, one shown: beside the image when the panel is wide, under it
         # when the panel is tall (see _fit_frame). Both are in the plot's own layout, so
@@ -216,6 +217,7 @@ class SliceView(QWidget):
         self._segment_ends = pg.ScatterPlotItem(size=9, pen=make_pen(_SEGMENT_COLOUR, 1.4))
         for z, item in enumerate((self._segment_halo, self._segment_line, self._segment_ends)):
             item.setZValue(16 + z)
+            item.hide()  # shown with a segment (_show_segment)
             self._plot.addItem(item, ignoreBounds=True)
         self._image.setToolTip(f"{PROFILE_HINT}\n{_NAVIGATION_HINT}")
         crosshair = make_pen(_CROSSHAIR_COLOUR, 1.0, Qt.PenStyle.DashLine)
@@ -442,6 +444,8 @@ class SliceView(QWidget):
             self._marker.setData([scene.marker[0]], [scene.marker[1]])
         else:
             self._marker.setData([], [])
+        # An empty item still costs a paint call: hidden unless it has something to draw.
+        self._marker.setVisible(scene.marker is not None)
         if self._external_contours and scene.contours is None:
             self._contour_timer.stop()
             self._contours_pending = False
@@ -725,6 +729,8 @@ class SliceView(QWidget):
         self.profile_requested.emit(start[0], start[1], end[0], end[1])
 
     def _show_segment(self, segment: tuple[tuple[float, float], tuple[float, float]] | None) -> None:
+        for item in (self._segment_halo, self._segment_line, self._segment_ends):
+            item.setVisible(segment is not None)  # an empty item still costs a paint call
         if segment is None:
             for item in (self._segment_halo, self._segment_line, self._segment_ends):
                 item.setData([], [])
