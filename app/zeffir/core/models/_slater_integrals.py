@@ -8,6 +8,8 @@ closed-form energy of the variational model (``_sto_energy``, mixed n) both use 
 
 from __future__ import annotations
 
+import math
+
 import numpy as np
 import numpy.typing as npt
 
@@ -169,7 +171,37 @@ def _ordered_part(m: int | FloatArray, alpha: FloatArray, n: int | FloatArray,
     """∫₀^∞ x^m e^{-αx} ∫₀^x y^n e^{-βy} dy dx as (log prefactor, regularised beta factor)."""
     log_full = (special.gammaln(m + 1) + special.gammaln(n + 1)
                 - (m + 1) * np.log(alpha) - (n + 1) * np.log(beta))
+    if isinstance(m, int) and isinstance(n, int):
+        total = alpha + beta
+        return log_full, _binomial_tail(n + 1, m + 1, beta / total, alpha / total)
     return log_full, special.betainc(n + 1, m + 1, beta / (alpha + beta))
+
+
+def _binomial_tail(a: int, b: int, t: FloatArray, w: FloatArray) -> FloatArray:
+    """The regularised incomplete beta function I_t(a, b) for whole a, b ≥ 1, with w = 1 − t.
+
+    Notes
+    -----
+    For whole parameters I_t(a, b) is the upper tail of a binomial distribution,
+    Σ_{j=a}^{N} C(N, j) t^j w^{N−j} with N = a + b − 1 (Abramowitz & Stegun 1964,
+    26.5.24): b positive terms, formed by the ratio of consecutive terms, so nothing
+    cancels; w is passed separately so that it keeps its digits when t is close to 1.
+    The b ≤ 15 terms met here cost a few array passes, against about 140 ns per
+    element for the general continued fraction of ``scipy.special.betainc`` (which
+    made it the largest cost of a heavy atom's Hartree–Fock set-up).
+
+    References
+    ----------
+    M. Abramowitz and I. A. Stegun, *Handbook of Mathematical Functions* (1964), 26.5.24.
+    """
+    top = a + b - 1
+    term = math.comb(top, a) * t**a * w ** (b - 1)
+    total = np.array(term, dtype=float)
+    ratio = t / w
+    for j in range(a, top):
+        term = term * ((top - j) / (j + 1)) * ratio
+        total += term
+    return total
 
 
 def rk_product(k: int, power1: int | npt.ArrayLike, alpha: npt.ArrayLike, power2: int | npt.ArrayLike,
@@ -331,8 +363,14 @@ def rk_tensor(k: int, n1: int, zetas1: npt.ArrayLike, n2: int, zetas2: npt.Array
     alpha, alpha_at = np.unique(z1[:, None] + z2[None, :], return_inverse=True)
     beta, beta_at = np.unique(z3[:, None] + z4[None, :], return_inverse=True)
     distinct = rk_product(k, n1 + n2, alpha[:, None], n3 + n4, beta[None, :])
-    values = distinct[alpha_at.reshape(-1)[:, None], beta_at.reshape(-1)[None, :]]
-    log_pairs = (ln1[:, None] + ln2[None, :])[:, :, None, None] + (ln3[:, None] + ln4[None, :])[None, None]
-    norms = np.exp(log_pairs)
+    # Normalisation folded into the distinct values' rows and columns before spreading:
+    # each pair's norm N_p N_q is one exponential of a sum of logs (no 4-index array of
+    # exponentials).
     shape = (z1.size, z2.size, z3.size, z4.size)
-    return np.asarray(norms * values.reshape(shape), dtype=float)
+    norm12 = np.exp(ln1[:, None] + ln2[None, :]).reshape(-1)
+    norm34 = np.exp(ln3[:, None] + ln4[None, :]).reshape(-1)
+    rows = np.take(distinct, alpha_at.reshape(-1), axis=0)
+    values = np.take(rows, beta_at.reshape(-1), axis=1)
+    values *= norm12[:, None]
+    values *= norm34[None, :]
+    return values.reshape(shape)

@@ -143,6 +143,13 @@ def build_many(
     SweepCancelled
         The sweep was asked to stop.
 
+    Notes
+    -----
+    The workers are started with the ``spawn`` method (no fork of a process that may
+    hold Qt or numba threads), so each one imports the calling script anew: a script
+    that calls this at its top level must do so under ``if __name__ == "__main__":``,
+    as the :mod:`multiprocessing` documentation requires for ``spawn``.
+
     Examples
     --------
     Slater's-rules exponents of the first row, in this process, without the cache;
