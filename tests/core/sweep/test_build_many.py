@@ -125,3 +125,18 @@ def test_default_directory_follows_the_environment(monkeypatch, tmp_path):
     assert default_cache_directory() == tmp_path / "xdg" / "zeffir"
     monkeypatch.setenv("XDG_CACHE_HOME", "relative/not/allowed")
     assert default_cache_directory().parts[-2:] == (".cache", "zeffir")
+
+
+def test_workers_start_with_one_blas_thread_and_the_parent_keeps_its_own(monkeypatch):
+    # Two workers on two cores, each with a BLAS thread per core, thrash each other;
+    # the pool starts with one thread per worker and the caller's settings come back.
+    import os
+
+    from zeffir.core.sweep._parallel import _THREAD_VARIABLES, _one_thread_per_worker
+
+    monkeypatch.setenv("OPENBLAS_NUM_THREADS", "7")
+    monkeypatch.delenv("OMP_NUM_THREADS", raising=False)
+    with _one_thread_per_worker():
+        assert all(os.environ[name] == "1" for name in _THREAD_VARIABLES)
+    assert os.environ["OPENBLAS_NUM_THREADS"] == "7"
+    assert "OMP_NUM_THREADS" not in os.environ
