@@ -277,7 +277,7 @@ def window_cases(baseline: float) -> None:
 
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     import pyqtgraph as pg
-    from PySide6.QtCore import QEventLoop, QSettings, QTimer
+    from PySide6.QtCore import QEvent, QEventLoop, QSettings, QTimer
     from PySide6.QtWidgets import QApplication
 
     from zeffir.state import CompareSettings, OrbitalChoice, SliceSettings, Source, ViewState
@@ -319,6 +319,10 @@ def window_cases(baseline: float) -> None:
             latencies.append(painted[0] - start)
         window.worker.shutdown()
         window.close()
+        # Delete it now, as the application would: a closed window kept alive keeps its
+        # plot items connected and would slow the cases measured after it.
+        window.deleteLater()
+        app.sendPostedEvents(None, QEvent.Type.DeferredDelete)
         return statistics.median(latencies[5:]) * 1e3
 
     plane = SliceSettings(plane="xy", extent=5.0, resolution=SIZE)

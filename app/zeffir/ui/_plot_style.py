@@ -172,7 +172,9 @@ def style_plot(plot: pg.PlotItem, grid: bool = True) -> None:
         plot.getAxis("left").setGrid(int(0.13 * 255))
         plot.getAxis("bottom").setGrid(int(0.13 * 255))
         for side in ("top", "right"):
+            # Frame lines only: no ticks to place (fixed empty ticks skip the tick search).
             plot.getAxis(side).setStyle(tickLength=0)
+            plot.getAxis(side).setTicks([[], []])
         # The axes draw the grid; put them behind the view box so the grid runs under
         # the curves and the legend instead of over them.
         for side in ("left", "bottom", "top", "right"):

@@ -610,13 +610,27 @@ class RadialView(QWidget):
         if scale is not None and scale == self._subset_scale:
             return
         self._subset_scale = scale
-        for item, _colour, x, y in self._curves.values():
-            if scale is None:
+        curves = list(self._curves.values())
+        if not curves:
+            return
+        if scale is None:
+            for item, _colour, x, y in curves:
                 item.setData(x, y)
-                continue
-            with np.errstate(invalid="ignore"):
-                chosen = drawn_subset(self._view_x_array(x) * scale[0], y * scale[1])
-            item.setData(x[chosen], y[chosen])
+            return
+        # All curves in one pass: joined end to end with a gap (NaN) between them, which
+        # keeps each one's ends, then split again.
+        gap = np.array([np.nan])
+        with np.errstate(invalid="ignore"):
+            px = np.concatenate([part for _, _, x, _ in curves
+                                 for part in (self._view_x_array(x) * scale[0], gap)])
+            py = np.concatenate([part for _, _, _, y in curves for part in (y * scale[1], gap)])
+        chosen = drawn_subset(px, py)
+        start = 0
+        for item, _colour, x, y in curves:
+            stop = start + x.size
+            mine = chosen[(chosen >= start) & (chosen < stop)] - start
+            item.setData(x[mine], y[mine])
+            start = stop + 1
 
     def _view_x_array(self, x: np.ndarray) -> np.ndarray:
         if self._scene is not None and self._scene.log_r:
