@@ -20,6 +20,9 @@ from pathlib import Path
 import pytest
 
 os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+# Sweeps and trends keep results in a disk cache: the suite's go to a folder of its own,
+# never to the user's cache directory.
+os.environ.setdefault("ZEFFIR_CACHE_DIR", tempfile.mkdtemp(prefix="zeffir-test-cache-"))
 
 ROOT = Path(__file__).resolve().parents[1]
 LOWER_BOUNDS_TEST = "test_lower_bounds_env.py"

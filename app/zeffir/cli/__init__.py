@@ -5,10 +5,11 @@ a subshell table (``--json`` for one machine-readable object in atomic units);
 ``zeffir terms SPEC`` lists the term symbols, J levels and Hund ground level of a
 configuration (``--json`` for one object); ``zeffir figure SPEC --out FILE`` writes a
 figure or data file of the radial or slice view (the format follows the suffix),
-optionally comparing two models or two specs. Bad input prints the reason on stderr
+optionally comparing two models or two specs; ``zeffir trend QUANTITY --over RULE``
+evaluates one quantity over many configurations and models. Bad input prints the reason on stderr
 and exits with status 2, never a traceback, and leaves no partial file.
 
-The package: ``_parser`` (options), ``_table``, ``_terms``, ``_figure``, ``_window``
+The package: ``_parser`` (options), ``_table``, ``_terms``, ``_figure``, ``_trend``, ``_window``
 (one module per command) and ``_common`` (exit statuses, unit names, errors).
 """
 
@@ -31,6 +32,7 @@ from zeffir.cli._figure import _figure, figure_state, parse_orbital
 from zeffir.cli._parser import _parser
 from zeffir.cli._table import _format_table, table_json
 from zeffir.cli._terms import _format_terms, terms_json
+from zeffir.cli._trend import _trend, trend_json
 from zeffir.cli._window import _demo, _window
 
 # ``_InputError`` and ``_parser`` are imported by the tests from here as well.
@@ -47,6 +49,7 @@ __all__ = [
     "split_specs",
     "table_json",
     "terms_json",
+    "trend_json",
 ]
 
 
@@ -78,6 +81,8 @@ def _run(args: argparse.Namespace) -> int:
         return EXIT_OK
     if args.command == "figure":
         return _figure(args)
+    if args.command == "trend":
+        return _trend(args)
     return EXIT_OK  # pragma: no cover - argparse rejects unknown commands
 
 

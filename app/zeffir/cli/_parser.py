@@ -7,6 +7,7 @@ import argparse
 from zeffir import __version__
 from zeffir.cli._common import _EXIT_CODES_TEXT, UNIT_CHOICES, _UnitsAction
 from zeffir.cli._figure import _add_figure_parser
+from zeffir.cli._trend import _add_trend_parser
 
 
 def _parser() -> argparse.ArgumentParser:
@@ -17,7 +18,7 @@ def _parser() -> argparse.ArgumentParser:
         description="Orbitals, densities and figures for many-electron atoms. "
         "With no command, opens the window on the built-in demo (or on --session FILE).",
         formatter_class=argparse.RawDescriptionHelpFormatter,
-        epilog="commands: table, terms, figure (zeffir COMMAND --help for each), demo\n\n"
+        epilog="commands: table, terms, figure, trend (zeffir COMMAND --help for each), demo\n\n"
         + _EXIT_CODES_TEXT,
     )
     chatter = argparse.ArgumentParser(add_help=False)
@@ -78,4 +79,5 @@ def _parser() -> argparse.ArgumentParser:
     )
     terms.add_argument("--json", action="store_true", help="print one JSON object instead of text")
     _add_figure_parser(commands, DEFAULT_MODEL, model_names(), chatter)
+    _add_trend_parser(commands, DEFAULT_MODEL, list(model_names()), chatter)
     return parser

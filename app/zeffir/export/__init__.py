@@ -24,6 +24,7 @@ from zeffir.export._session import (
     save_session,
 )
 from zeffir.export._style import COLUMN_WIDTHS
+from zeffir.export._trend_files import TREND_FORMATS, trend_csv_text, write_trend
 from zeffir.export._view import EXPORT_FORMATS, export_view, view_target
 
 __all__ = [
@@ -40,6 +41,7 @@ __all__ = [
     "SESSION_KIND",
     "SESSION_SUFFIX",
     "SESSION_VERSION",
+    "TREND_FORMATS",
     "ExportError",
     "SessionError",
     "atomic_file",
@@ -49,10 +51,12 @@ __all__ = [
     "profile_column_names",
     "profile_csv_text",
     "save_session",
+    "trend_csv_text",
     "unit_token",
     "view_target",
     "write_atomic",
     "write_data",
     "write_figure",
     "write_profile_csv",
+    "write_trend",
 ]

@@ -56,6 +56,7 @@ from zeffir.scene._terms import (
     term_symbol,
     terms_summary,
 )
+from zeffir.scene._trends import TrendLine, TrendScene, element_blocks, trend_scene
 from zeffir.scene._views import (
     FIGURE_VIEWS,
     VIEW_RECIPES,
@@ -93,6 +94,8 @@ __all__ = [
     "TermNote",
     "TermRow",
     "TermsSummary",
+    "TrendLine",
+    "TrendScene",
     "TwoElectronScenes",
     "ViewRecipe",
     "ViewScenes",
@@ -104,6 +107,7 @@ __all__ = [
     "compare_slices",
     "contour_levels",
     "determinant_for",
+    "element_blocks",
     "fitted_extent",
     "forget_failure",
     "length_factor",
@@ -127,6 +131,7 @@ __all__ = [
     "term_symbol",
     "terms_summary",
     "trace_contours",
+    "trend_scene",
     "two_electron_scenes",
     "unit_text",
     "values_label",
