@@ -230,6 +230,28 @@ def model_cases() -> None:
         start = time.perf_counter()
         build_many(neutral_atoms(), "hartree-fock", cache=cache)
         report("hf_table_cached_wall", time.perf_counter() - start, "s", "<= 1")
+    trend_cases()
+
+
+def trend_cases() -> None:
+    """A full H–Og Hartree–Fock trend through the trend evaluator, cold cache then warm."""
+    import tempfile
+
+    from zeffir.core.sweep import DiskCache
+    from zeffir.core.trends import evaluate_trend, parse_rule
+
+    with tempfile.TemporaryDirectory() as scratch:
+        cache = DiskCache(scratch)
+        specs = parse_rule("Z=1-118")
+        start = time.perf_counter()
+        trend = evaluate_trend(specs, ["hartree-fock"], "ionization_energy", methods=["koopmans"],
+                               cache=cache)
+        report("trend_hf_table_cold_wall", time.perf_counter() - start, "s", "(no goal)")
+        gaps = sum(p.value is None for p in trend.series[0].points)
+        print(f"  ({len(specs) - gaps} of {len(specs)} values; {gaps} gaps)", flush=True)
+        start = time.perf_counter()
+        evaluate_trend(specs, ["hartree-fock"], "ionization_energy", methods=["koopmans"], cache=cache)
+        report("trend_hf_table_warm_wall", time.perf_counter() - start, "s", "(no goal)")
 
 
 def _process_seconds(argv: list[str], env: dict[str, str] | None = None, repeats: int = 5) -> float:
