@@ -31,7 +31,7 @@ def view_target(state: ViewState) -> Target:
     RadialScene, SliceScene, RadialComparison, SliceComparison, PairScenes or TwoElectronScenes
     """
     if state.view not in FIGURE_VIEWS:
-        raise ExportError(f"the {state.view} view draws no figure")
+        raise ExportError(f"the {state.view} view draws no figure of this kind")
     return view_scene(state)  # type: ignore[no-any-return]
 
 
@@ -68,6 +68,8 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
         raise ExportError(f"{target_path}: the Terms view is a table, not a figure; "
                           "use 'zeffir terms SPEC --json' or copy the table")
     suffix = target_path.suffix.lower()
+    if state.view == "trends":
+        return _export_trend(state, target_path, width, dpi)
     if suffix not in EXPORT_FORMATS:
         raise ExportError(
             f"{target_path}: unknown file type {suffix or '(no suffix)'}; "
@@ -89,3 +91,18 @@ def export_view(state: ViewState, path: str | os.PathLike[str], *, width: str | 
     if suffix in DATA_FORMATS:
         return write_data(target, target_path)
     return write_figure(target, target_path, width=width, dpi=dpi)
+
+
+def _export_trend(state: ViewState, path: Path, width: str | None, dpi: int) -> Path:
+    """The Trends view as a figure or CSV (:func:`~zeffir.export.write_trend`)."""
+    from zeffir.export._trend_files import TREND_FORMATS, write_trend
+
+    suffix = path.suffix.lower()
+    if suffix not in TREND_FORMATS:
+        raise ExportError(f"{path}: a trend is written as {', '.join(TREND_FORMATS)}")
+    if not path.parent.is_dir():
+        raise ExportError(f"{path}: cannot write (No such file or directory)")
+    if suffix in FIGURE_FORMATS:
+        check_figure_options(width, dpi)
+    state = state.validated()
+    return write_trend(view_scene(state), path, width=width, dpi=dpi)

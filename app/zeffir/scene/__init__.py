@@ -56,7 +56,7 @@ from zeffir.scene._terms import (
     term_symbol,
     terms_summary,
 )
-from zeffir.scene._trends import TrendLine, TrendScene, element_blocks, trend_scene
+from zeffir.scene._trends import TrendLine, TrendScene, element_blocks, trend_scene, trends_view
 from zeffir.scene._views import (
     FIGURE_VIEWS,
     VIEW_RECIPES,
@@ -132,6 +132,7 @@ __all__ = [
     "terms_summary",
     "trace_contours",
     "trend_scene",
+    "trends_view",
     "two_electron_scenes",
     "unit_text",
     "values_label",

@@ -11,13 +11,14 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import Any
 
 import zeffir.core
 from zeffir.core.config import madelung_order
 from zeffir.core.trends import Trend, TrendQuantity
 from zeffir.scene._quantities import length_factor, length_symbol
 
-__all__ = ["TrendLine", "TrendScene", "element_blocks", "trend_scene"]
+__all__ = ["TrendLine", "TrendScene", "element_blocks", "trend_scene", "trends_view"]
 
 _METHOD_NAMES = {"koopmans": "Koopmans", "delta-scf": "ΔSCF"}
 
@@ -174,3 +175,16 @@ def _model_title(model: str) -> str:
     from zeffir.scene._build import model_title
 
     return model_title(model)
+
+
+def trends_view(settings: Any, length_unit: str = "bohr") -> TrendScene:
+    """The Trends view of a :class:`~zeffir.state.TrendSettings` (parallel, disk-cached)."""
+    from zeffir.core.trends import evaluate_trend, parse_rule, quantity
+
+    kind = quantity(settings.quantity)
+    ionization = kind.name == "ionization_energy"
+    trend = evaluate_trend(
+        parse_rule(settings.rule), settings.model_list(), settings.quantity,
+        subshell=settings.subshell if (kind.per_subshell or ionization) else None,
+        methods=settings.method_list() if ionization else None)
+    return trend_scene(trend, length_unit)

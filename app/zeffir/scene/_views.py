@@ -22,7 +22,7 @@ from zeffir.state import ViewState
 __all__ = ["FIGURE_VIEWS", "VIEW_RECIPES", "ViewRecipe", "ViewScenes", "panels_of", "view_inputs",
            "view_scene"]
 
-#: What a figure view computes.
+#: What a figure view computes (the Trends view's TrendScene is written by its own writer).
 ViewScenes = (RadialScene | SliceScene | RadialComparison | SliceComparison | PairScenes
               | TwoElectronScenes)
 
@@ -67,6 +67,12 @@ def _terms(state: ViewState) -> Any:
     return terms_summary(state.left.spec)
 
 
+def _trends(state: ViewState) -> Any:
+    from zeffir.scene._trends import trends_view
+
+    return trends_view(state.trends, state.length_unit)
+
+
 def _compare_inputs(state: ViewState) -> tuple[object, ...]:
     """The comparison as drawn: its series and layout (not the settings of a hidden one)."""
     compare = state.compare
@@ -86,10 +92,12 @@ VIEW_RECIPES: Final[dict[str, ViewRecipe]] = {
         ViewRecipe("two-electron", lambda s: (s.left, s.length_unit, s.two_electron, s.slice.contours),
                    two_electron_scenes),
         ViewRecipe("terms", lambda s: (s.left.spec,), _terms),
+        ViewRecipe("trends", lambda s: (s.trends, s.length_unit), _trends),
     )
 }
-#: The views that draw figures (every view but the Terms table).
-FIGURE_VIEWS: Final[tuple[str, ...]] = tuple(name for name in VIEW_RECIPES if name != "terms")
+#: The views that draw figures of scenes (every view but the Terms table and the Trends
+#: view, which :func:`zeffir.export.write_trend` draws).
+FIGURE_VIEWS: Final[tuple[str, ...]] = tuple(name for name in VIEW_RECIPES if name not in ("terms", "trends"))
 
 
 def view_inputs(state: ViewState, view: str | None = None) -> tuple[object, ...]:

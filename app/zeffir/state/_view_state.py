@@ -10,6 +10,7 @@ import math
 import re
 import unicodedata
 from dataclasses import dataclass, field, fields, replace
+from functools import lru_cache
 from typing import Any, Final, Literal, get_args
 
 from zeffir.core import DEFAULT_MODEL, ZeffirError, model_names, parse_spec
@@ -38,6 +39,7 @@ __all__ = [
     "SliceSettings",
     "Source",
     "StateError",
+    "TrendSettings",
     "TwoElectronSettings",
     "ViewState",
 ]
@@ -46,7 +48,7 @@ LengthUnit = Literal["bohr", "angstrom"]
 RadialQuantity = Literal["R", "P", "D", "Q"]
 SliceQuantity = Literal["psi", "psi2", "density"]
 PlaneName = Literal["xy", "xz", "yz", "custom"]
-ViewName = Literal["radial", "slice", "pair", "two-electron", "terms"]
+ViewName = Literal["radial", "slice", "pair", "two-electron", "terms", "trends"]
 SpinName = Literal["up", "down"]
 TwoElectronMap = Literal["radial", "collinear"]
 ColourLimits = Literal["robust", "extremes", "manual"]
@@ -238,6 +240,78 @@ MAX_SERIES: Final[int] = 6
 
 
 @dataclass(frozen=True)
+class TrendSettings:
+    """The Trends view: one quantity over many configurations, one line per model.
+
+    Attributes
+    ----------
+    quantity : str
+        A name of :func:`zeffir.core.trends.quantity_names` (``z_eff``, ``energy``,
+        ``ionization_energy``...).
+    rule : str
+        Which configurations, as ``zeffir trend --over`` takes it (``Z=1-36``,
+        ``isoelectronic=10:Z=10-20``, ``family=[Ar] 3dn 4s2:n=1-10``, or specs
+        separated by commas).
+    models : str
+        Models separated by commas, one line each (at most six).
+    subshell : str
+        For per-subshell quantities: a label such as ``3d``, or ``valence``.
+    methods : str
+        For ionization energies: ``koopmans``, ``delta-scf`` or both, separated by commas.
+    """
+
+    quantity: str = "z_eff"
+    rule: str = "Z=1-36"
+    models: str = "slater,clementi,hartree-fock"
+    subshell: str = "valence"
+    methods: str = "koopmans"
+
+    def model_list(self) -> tuple[str, ...]:
+        """The models, in order."""
+        return tuple(m.strip() for m in self.models.split(",") if m.strip())
+
+    def method_list(self) -> tuple[str, ...]:
+        """The ionization methods, in order."""
+        return tuple(m.strip() for m in self.methods.split(",") if m.strip())
+
+    def check(self) -> None:
+        """Raise :class:`StateError` naming the first wrong setting (remembered per settings:
+        every state change validates the whole state, and a rule may list many specs)."""
+        _check_trend_settings(self)
+
+    def _check(self) -> None:
+        from zeffir.core.trends import IONIZATION_METHODS, TrendRuleError, parse_rule, quantity
+
+        _check_text("trends.rule", self.rule, 4 * MAX_SPEC_LENGTH)
+        try:
+            quantity(self.quantity)
+        except ZeffirError as error:
+            raise StateError(f"trends.quantity: {error}") from None
+        try:
+            parse_rule(self.rule)
+        except TrendRuleError as error:
+            raise StateError(f"trends.rule: {error}") from None
+        models = self.model_list()
+        if not models or len(models) > MAX_SERIES:
+            raise StateError(f"trends.models: name from 1 to {MAX_SERIES} models separated by commas")
+        for name in models:
+            if name not in model_names():
+                raise StateError(f"trends.models: {_shown(name)} is not one of {', '.join(model_names())}")
+        methods = self.method_list()
+        if not methods or any(m not in IONIZATION_METHODS for m in methods):
+            raise StateError(f"trends.methods: choose {' and/or '.join(IONIZATION_METHODS)}")
+        label = self.subshell.strip()
+        if label != "valence" and not re.fullmatch(r"\d{1,2}[spdfghik]", label):
+            raise StateError(f"trends.subshell: {_shown(label)} is not a subshell label (e.g. 3d) "
+                             "or 'valence'")
+
+
+@lru_cache(maxsize=64)
+def _check_trend_settings(settings: TrendSettings) -> None:
+    settings._check()
+
+
+@dataclass(frozen=True)
 class CompareSettings:
     """The comparison: the second series, any further ones, and how they are laid out.
 
@@ -282,6 +356,7 @@ class ViewState:
     compare: CompareSettings = field(default_factory=CompareSettings)
     pair: PairSettings = field(default_factory=PairSettings)
     two_electron: TwoElectronSettings = field(default_factory=TwoElectronSettings)
+    trends: TrendSettings = field(default_factory=TrendSettings)
 
     def with_changes(self, **changes: Any) -> ViewState:
         """A copy with top-level fields replaced (nested objects are replaced whole)."""
@@ -352,6 +427,7 @@ class ViewState:
         _check_optional_length("two_electron.r_limit", self.two_electron.r_limit)
         self.pair.colour.check("pair.colour")
         self.two_electron.colour.check("two_electron.colour")
+        self.trends.check()
         return replace(self, orbital=reconcile_orbital(self.left.spec, self.orbital))
 
     def to_dict(self) -> dict[str, Any]:

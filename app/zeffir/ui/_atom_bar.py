@@ -3,11 +3,20 @@
 from __future__ import annotations
 
 from PySide6.QtCore import Qt, QTimer, Signal
-from PySide6.QtWidgets import QComboBox, QGridLayout, QHBoxLayout, QLabel, QLineEdit, QWidget
+from PySide6.QtWidgets import (
+    QComboBox,
+    QGridLayout,
+    QHBoxLayout,
+    QLabel,
+    QLineEdit,
+    QToolButton,
+    QWidget,
+)
 
 from zeffir.core import ZeffirError, get_model, model_names, parse_spec
 from zeffir.core.orbitals import real_labels
 from zeffir.state import OrbitalChoice, Source
+from zeffir.ui._element_chooser import ElementChooser
 
 __all__ = ["AtomBar", "SourceFields"]
 
@@ -29,14 +38,29 @@ class SourceFields(QWidget):
         the field and emits nothing, so the last valid state stays on screen.
     resubmitted(Source)
         Return was pressed on the spec already in the state (a request to retry).
+
+    With ``element_chooser``, a small button beside the field opens the periodic table
+    (:class:`ElementChooser`); the element clicked is entered as if typed and followed
+    by Return. It is offered on the main atom strip only: the side panel's rows are too
+    narrow for a third control beside the field.
     """
 
     source_edited = Signal(object)
     resubmitted = Signal(object)
 
     def __init__(self, caption: str, parent: QWidget | None = None, stacked: bool = False,
-                 allow_empty: bool = False) -> None:
+                 allow_empty: bool = False, element_chooser: bool = False) -> None:
         super().__init__(parent)
+        # Made on the first click: the window's start-up does not pay for 118 buttons.
+        self.chooser: ElementChooser | None = None
+        self.chooser_button: QToolButton | None = None
+        if element_chooser:
+            self.chooser_button = QToolButton()
+            self.chooser_button.setObjectName("elementChooserButton")
+            self.chooser_button.setText("Table…")
+            self.chooser_button.setToolTip("Choose an element from the periodic table")
+            self.chooser_button.setAccessibleName("Choose an element from the periodic table")
+            self.chooser_button.clicked.connect(self.open_chooser)
         self._source = Source()
         # An empty field is a valid choice where it means "the main atom" (further series).
         self._allow_empty = allow_empty
@@ -75,15 +99,19 @@ class SourceFields(QWidget):
             grid.setContentsMargins(0, 0, 0, 0)
             grid.addWidget(label, 0, 0)
             grid.addWidget(self.spec_edit, 0, 1)
+            if self.chooser_button is not None:
+                grid.addWidget(self.chooser_button, 0, 2)
             grid.addWidget(model_label, 1, 0)
-            grid.addWidget(self.model_box, 1, 1)
-            grid.addWidget(self.message, 2, 0, 1, 2)
+            grid.addWidget(self.model_box, 1, 1, 1, 2)
+            grid.addWidget(self.message, 2, 0, 1, 3)
             grid.setColumnStretch(1, 1)
         else:
             layout = QHBoxLayout(self)
             layout.setContentsMargins(0, 0, 0, 0)
             layout.addWidget(label)
             layout.addWidget(self.spec_edit, 2)
+            if self.chooser_button is not None:
+                layout.addWidget(self.chooser_button)
             layout.addWidget(model_label)
             layout.addWidget(self.model_box)
             layout.addWidget(self.message, 3)
@@ -104,6 +132,24 @@ class SourceFields(QWidget):
             self.model_box.setCurrentIndex(index)
         for widget in (self.spec_edit, self.model_box):
             widget.blockSignals(False)
+
+    def open_chooser(self) -> ElementChooser:
+        """Open the periodic table (made on first use), focused on the current element."""
+        if self.chooser is None:
+            self.chooser = ElementChooser(self)
+            self.chooser.chosen.connect(self._on_element_chosen)
+        try:
+            self.chooser.focus_element(parse_spec(self.spec_edit.text()).element.symbol)
+        except ZeffirError:
+            pass  # an empty or invalid field: no element to start from
+        # open(), not exec(): window-modal without a nested event loop.
+        self.chooser.open()
+        return self.chooser
+
+    def _on_element_chosen(self, symbol: str) -> None:
+        self.spec_edit.setText(symbol)
+        self.spec_edit.setFocus(Qt.FocusReason.OtherFocusReason)
+        self._on_return()  # exactly what Return in the field does
 
     def error_text(self) -> str:
         """The parser's message currently shown, or '' when the field is valid."""
@@ -167,7 +213,7 @@ class AtomBar(QWidget):
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
-        self.source_fields = SourceFields("Atom")
+        self.source_fields = SourceFields("Atom", element_chooser=True)
         self.subshell_box = QComboBox()
         self.subshell_box.setToolTip("Subshell shown in the slice and highlighted in the radial view")
         self.orbital_box = QComboBox()

@@ -26,6 +26,7 @@ from zeffir.state import MAX_VIEW_RESOLUTION, ColourSettings, CompareSettings, V
 from zeffir.ui._atom_bar import SourceFields
 from zeffir.ui._colour_controls import ColourControls
 from zeffir.ui._series_list import SeriesList
+from zeffir.ui._trend_controls import TrendControls
 from zeffir.ui._wheel_guard import guard_wheel
 
 __all__ = ["ViewControls"]
@@ -85,6 +86,7 @@ class ViewControls(QWidget):
     compare_edited = Signal(object)
     pair_edited = Signal(object)
     two_electron_edited = Signal(object)
+    trends_edited = Signal(object)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -98,13 +100,15 @@ class ViewControls(QWidget):
         self.compare_box = self._build_compare()
         self.pair_box = self._build_pair()
         self.two_electron_box = self._build_two_electron()
+        self.trends_box = TrendControls()
+        self.trends_box.trends_edited.connect(self.trends_edited)
         # Limits, log scale and colour map of the slice, pair and two-electron views.
         self.colour_box = ColourControls()
         self.colour_box.colour_edited.connect(self._emit_colour)
         self.log_scale = self.colour_box.log_scale
         self.log_decades = self.colour_box.log_decades
         for box in (self.radial_box, self.slice_box, self.compare_box, self.pair_box,
-                    self.two_electron_box, self.colour_box):
+                    self.two_electron_box, self.trends_box, self.colour_box):
             layout.addWidget(box)
         layout.addStretch(1)
         self._slice_timer = QTimer(self)
@@ -338,6 +342,7 @@ class ViewControls(QWidget):
         self.two_map.blockSignals(True)
         self.two_map.setCurrentIndex(self.two_map.findData(state.two_electron.map))
         self.two_map.blockSignals(False)
+        self.trends_box.show_settings(state.trends)
         for widget in widgets:
             widget.blockSignals(False)
 
@@ -388,6 +393,7 @@ class ViewControls(QWidget):
         self.compare_box.setVisible(view in ("radial", "slice"))
         self.pair_box.setVisible(view == "pair")
         self.two_electron_box.setVisible(view == "two-electron")
+        self.trends_box.setVisible(view == "trends")
         self.colour_box.setVisible(view in ("slice", "pair", "two-electron"))
 
     def show_drawn_colour(self, view: str, scene: SliceScene) -> None:

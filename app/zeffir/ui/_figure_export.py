@@ -107,9 +107,9 @@ class FigureExport:
         return self._export(Path(path), width, dpi or 300)
 
     def data(self, path: str | Path | None = None) -> bool:
-        """Export the plotted data: CSV for radial curves, NPZ for slices."""
+        """Export the plotted data: CSV for radial curves and trends, NPZ for slices."""
         if path is None:
-            radial = self._model.state.view == "radial"
+            radial = self._model.state.view in ("radial", "trends")
             chosen, _ = QFileDialog.getSaveFileName(
                 self._parent, "Export data", self._last_dir(),
                 "Comma-separated values (*.csv)" if radial else "NumPy archive (*.npz)")

@@ -19,6 +19,7 @@ class JobKey(StrEnum):
     PAIR = "pair"
     TWO_ELECTRON = "two-electron"
     TERMS = "terms"
+    TRENDS = "trends"
     TABLE = "table"
     PROFILE = "profile"
     EXPORT = "export"
@@ -38,7 +39,7 @@ class JobKey(StrEnum):
 
     @property
     def is_view(self) -> bool:
-        """True for the keys of the five views."""
+        """True for the keys of the six views."""
         return self in _VIEWS
 
     @property
@@ -47,4 +48,5 @@ class JobKey(StrEnum):
         return self.value.removesuffix("-contours") if self.value.endswith("-contours") else None
 
 
-_VIEWS = frozenset({JobKey.RADIAL, JobKey.SLICE, JobKey.PAIR, JobKey.TWO_ELECTRON, JobKey.TERMS})
+_VIEWS = frozenset({JobKey.RADIAL, JobKey.SLICE, JobKey.PAIR, JobKey.TWO_ELECTRON, JobKey.TERMS,
+                    JobKey.TRENDS})

@@ -52,6 +52,7 @@ from zeffir.ui._slice_view import PROFILE_HINT, SliceView
 from zeffir.ui._state_model import StateModel
 from zeffir.ui._subshell_table import SubshellTable
 from zeffir.ui._terms_view import TermsView
+from zeffir.ui._trend_view import TrendView
 from zeffir.ui._wheel_guard import guard_wheel
 from zeffir.ui._worker import SceneWorker
 
@@ -67,7 +68,7 @@ PANEL_FRAME: tuple[float, float] = (110.0, 130.0)
 BUSY_BANNER_DELAY_MS = 400
 
 
-_VIEWS = ("radial", "slice", "pair", "two-electron", "terms")
+_VIEWS = ("radial", "slice", "pair", "two-electron", "terms", "trends")
 
 
 def _contour_job(scenes: list[Any]) -> Any:
@@ -120,6 +121,9 @@ def describe(state: ViewState) -> str:
     """'Fe — Slater's rules', with the comparison's side when one is shown."""
     if state.view in ("radial", "slice"):
         return " vs ".join(_source_text(source) for source in state.series())
+    if state.view == "trends":
+        t = state.trends
+        return f"{t.quantity} over {t.rule} ({', '.join(t.model_list())})"
     return _source_text(state.left)
 
 
@@ -362,6 +366,9 @@ class MainWindow(QMainWindow):
         self.tabs.addTab(self.two_trio, "Two electrons")
         self.terms_view = TermsView()
         self.tabs.addTab(self.terms_view, "Terms")
+        self.trend_view = TrendView()
+        self.tabs.addTab(self.trend_view, "Trends")
+        self.trend_view.configuration_clicked.connect(self._open_configuration)
         self.tabs.setTabToolTip(0, "Radial functions, distributions and cumulative charge")
         self.tabs.setTabToolTip(1, "Orbitals and densities on a plane through the atom")
         self.tabs.setTabToolTip(2, "For a reference electron at r₁: the other same-spin electrons, the "
@@ -468,6 +475,7 @@ class MainWindow(QMainWindow):
         self.controls.compare_edited.connect(lambda c: self.model.update(compare=c))
         self.controls.pair_edited.connect(lambda p: self.model.update(pair=p))
         self.controls.two_electron_edited.connect(lambda t: self.model.update(two_electron=t))
+        self.controls.trends_edited.connect(lambda t: self.model.update(trends=t))
         self.tabs.currentChanged.connect(lambda i: self.model.update(view=_VIEWS[i]))
         self.profile_view = ProfileView()
         self.profile_dock = QDockWidget("Line profile", self)
@@ -714,6 +722,11 @@ class MainWindow(QMainWindow):
             self.statusBar().clearMessage()
             self._refresh_banner()
             return
+        if key == JobKey.TRENDS:
+            self.trend_view.show_scene(result)
+            self.statusBar().clearMessage()
+            self._refresh_banner()
+            return
         parts = list(panels_of(result))
         trio = self._trios[key]
         for view, scene in zip(trio.views, parts, strict=False):
@@ -825,6 +838,11 @@ class MainWindow(QMainWindow):
         for trio in (self.slice_trio, self.pair_trio, self.two_trio):
             for view in trio.all_views:
                 view.clear_profile()
+
+    def _open_configuration(self, spec: str, model: str) -> None:
+        """A trend point was clicked: show that configuration under that model in the Radial view."""
+        source = Source(spec, model or self.model.state.left.model)
+        self.model.update(left=source, view="radial")
 
     def _select_subshell(self, label: str) -> None:
         current = self.model.state.orbital
