@@ -34,6 +34,14 @@ def test_the_json_object_has_the_documented_fields(capsys):
     assert [set(p) for p in reference["points"]] == [{"Z", "charge", "value"}] * 2
 
 
+def test_several_subshells_are_series_of_their_own(capsys):
+    data = _trend_json(capsys, "energy", "--over", "Z=21-22", "--subshell", "3d,4s",
+                       "--model", "hartree-fock")
+    assert data["subshell"] == "3d,4s"
+    assert [(s["model"], s["subshell"]) for s in data["series"]] == [("hartree-fock", "3d"),
+                                                                     ("hartree-fock", "4s")]
+
+
 def test_gaps_are_null_with_their_reason(capsys):
     data = _trend_json(capsys, "energy", "--over", "Z=19-21", "--subshell", "3d", "--model", "hartree-fock")
     values = [p["value"] for p in data["series"][0]["points"]]

@@ -93,6 +93,25 @@ def main(out: Path) -> int:
     model.update(left=Source("Be-", "hartree-fock"))
     model.update(length_unit="angstrom")
     shot("18-failed-build-in-angstrom-1280x720")
+    # Trends: the three figures a practitioner would check first.
+    from zeffir.state import TrendSettings
+
+    window.resize(1600, 1000)
+    model.update(length_unit="bohr", view="trends", trends=TrendSettings(
+        quantity="z_eff", rule="Z=1-36", models="slater,clementi,hartree-fock"))
+    shot("20-trend-z-eff-h-kr")
+    model.update(trends=TrendSettings(quantity="energy", rule="Z=21-30", models="hartree-fock",
+                                      subshell="3d,4s"))
+    shot("21-trend-3d-4s-energies-sc-zn")
+    model.update(length_unit="angstrom", trends=TrendSettings(
+        quantity="ionization_energy", rule="Z=1-54", models="hartree-fock",
+        methods="koopmans,delta-scf"))
+    shot("22-trend-ionization-h-xe-nist")
+    window.resize(1280, 720)
+    model.update(trends=TrendSettings(quantity="ionization_energy", rule="Z=1-54",
+                                      models="slater,hartree-fock", methods="koopmans,delta-scf"))
+    shot("23-trend-ionization-1280x720")
+    model.update(length_unit="bohr")
     window.worker.shutdown()
     # A Cancel: a worker-thread window, a long build (Kr, variational) cancelled at once.
     live = MainWindow(demo_state(), synchronous=False, settings=settings)  # type: ignore[arg-type]

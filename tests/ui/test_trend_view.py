@@ -126,3 +126,17 @@ def test_a_cancelled_trend_keeps_the_last_one_and_says_so(make_window, qtbot, tm
     assert window.drawn("trends").trends.rule == "Z=1-3"
     assert set(window.trend_view.line_data()) == set(shown)
     window.worker.shutdown()
+
+
+def test_the_line_profile_dock_steps_aside_for_trends(make_window):
+    from zeffir.state import SliceSettings
+
+    window = make_window(ViewState(left=Source("Ne", "slater"), view="slice",
+                                   slice=SliceSettings(resolution=32, fit_extent=False)))
+    window.slice_trio.views[0].profile_requested.emit(-2.0, 0.0, 2.0, 0.0)
+    assert not window.profile_dock.isHidden()
+    window.apply(window.state.with_changes(view="trends", trends=TrendSettings(rule="Z=1-3",
+                                                                               models="slater")))
+    assert window.profile_dock.isHidden()
+    window.apply(window.state.with_changes(view="slice"))
+    assert not window.profile_dock.isHidden()

@@ -19,7 +19,7 @@ from zeffir.export._data import CAUTION, version_note
 from zeffir.export._errors import ExportError
 from zeffir.export._figures import FIGURE_FORMATS, _metadata, _new_figure, check_figure_options
 from zeffir.export._style import COLUMN_WIDTHS, rc_parameters
-from zeffir.scene import LINE_COLOURS, TrendLine, TrendScene
+from zeffir.scene import TrendLine, TrendScene, line_colours
 
 __all__ = ["TREND_FORMATS", "trend_csv_text", "write_trend"]
 
@@ -74,15 +74,17 @@ def write_trend(scene: TrendScene, path: str | os.PathLike[str], *, width: str |
     return target
 
 
-def _colours(scene: TrendScene) -> dict[str | None, str]:
-    models = list(dict.fromkeys(line.model for line in scene.lines))
-    return {model: LINE_COLOURS[i % len(LINE_COLOURS)] for i, model in enumerate(models)}
+_MODEL_STYLES: Final[tuple[Any, ...]] = ("-", (0, (4.0, 1.6)), (0, (1.0, 1.3)), (0, (5.0, 1.5, 1.0, 1.5)))
 
 
-def _draw_lines(ax: Any, lines: tuple[TrendLine, ...], colours: dict[str | None, str]) -> None:
+def _draw_lines(ax: Any, lines: tuple[TrendLine, ...], styles: list[tuple[str, int]]) -> None:
     for index, line in enumerate(lines):
         empty = all(math.isnan(v) for v in line.y)  # the model defines no such number
-        ax.plot(line.x, line.y, color=colours[line.model], linestyle=_METHOD_STYLES.get(line.method, "-"),
+        colour, rank = styles[index]
+        dash = _METHOD_STYLES.get(line.method, "-")
+        if line.subshell is not None and rank:  # several subshells: the model sets the style
+            dash = _MODEL_STYLES[rank % len(_MODEL_STYLES)]
+        ax.plot(line.x, line.y, color=colour, linestyle=dash,
                 marker=_MARKERS[index % len(_MARKERS)], markersize=2.6, linewidth=0.9,
                 label=f"{line.name} (no values)" if empty else line.name)
 
@@ -100,7 +102,7 @@ def _trend_figure(scene: TrendScene, width: float) -> Any:
     figure = _new_figure(width, width * (0.62 if panels == 1 else 0.95))
     axes = figure.subplots(panels, 1, sharex=True, squeeze=False, height_ratios=[2, 1][:panels])
     main = axes[0][0]
-    colours = _colours(scene)
+    colours = line_colours(scene)
     _shade_blocks(main, scene)
     _draw_lines(main, scene.lines, colours)
     if scene.reference is not None:

@@ -56,7 +56,14 @@ from zeffir.scene._terms import (
     term_symbol,
     terms_summary,
 )
-from zeffir.scene._trends import TrendLine, TrendScene, element_blocks, trend_scene, trends_view
+from zeffir.scene._trends import (
+    TrendLine,
+    TrendScene,
+    element_blocks,
+    line_colours,
+    trend_scene,
+    trends_view,
+)
 from zeffir.scene._views import (
     FIGURE_VIEWS,
     VIEW_RECIPES,
@@ -113,6 +120,7 @@ __all__ = [
     "length_factor",
     "length_symbol",
     "level_symbol",
+    "line_colours",
     "line_profile",
     "manual_range",
     "model_title",

@@ -18,7 +18,7 @@ from zeffir.core.config import madelung_order
 from zeffir.core.trends import Trend, TrendQuantity
 from zeffir.scene._quantities import length_factor, length_symbol
 
-__all__ = ["TrendLine", "TrendScene", "element_blocks", "trend_scene", "trends_view"]
+__all__ = ["TrendLine", "TrendScene", "element_blocks", "line_colours", "trend_scene", "trends_view"]
 
 _METHOD_NAMES = {"koopmans": "Koopmans", "delta-scf": "ΔSCF"}
 
@@ -34,6 +34,8 @@ class TrendLine:
     y: tuple[float, ...]
     specs: tuple[str, ...]
     notes: tuple[tuple[str, ...], ...]
+    #: The subshell of this line when a trend shows several (then it takes its colour).
+    subshell: str | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -136,12 +138,15 @@ def trend_scene(trend: Trend, length_unit: str = "bohr") -> TrendScene:
     lines = []
     for series in trend.series:
         title = _model_title(series.model)
+        if series.subshell is not None:
+            title = f"{title}, {series.subshell}"
         name = title if series.method is None else (
             f"{title}, {_METHOD_NAMES.get(series.method, series.method)}")
         lines.append(TrendLine(
             name, series.model, series.method, tuple(where[p.spec] for p in series.points),
             tuple(math.nan if p.value is None else p.value * factor for p in series.points),
-            tuple(p.spec for p in series.points), tuple(p.notes for p in series.points)))
+            tuple(p.spec for p in series.points), tuple(p.notes for p in series.points),
+            series.subshell))
     reference = None
     differences: list[TrendLine] = []
     if trend.reference is not None:
@@ -157,11 +162,13 @@ def trend_scene(trend: Trend, length_unit: str = "bohr") -> TrendScene:
                 f"{line.name} − NIST", line.model, line.method, line.x,
                 tuple(math.nan if (v is None or math.isnan(y)) else y - v
                       for y, v in zip(line.y, values, strict=True)),
-                line.specs, line.notes))
+                line.specs, line.notes, line.subshell))
     subject = kind.title
     if kind.per_subshell or (kind.name == "ionization_energy" and trend.subshell not in (None, "valence")):
-        where_text = "valence subshell" if trend.subshell in (None, "valence") else trend.subshell
-        subject = f"{kind.title} of the {where_text}"
+        where_text = ("valence subshell" if trend.subshell in (None, "valence") else
+                      trend.subshell.replace(",", " and ") if "," in trend.subshell else trend.subshell)
+        subject = f"{kind.title} of the {where_text}" if "," not in (trend.subshell or "") \
+            else f"{kind.title}: {where_text}"
     y_label = f"{subject} / {unit}" if unit else subject
     span = f"{first[0].spec} … {first[-1].spec}" if len(first) > 1 else (first[0].spec if first else "")
     blocks = element_blocks(min(zs), max(zs)) if by_z and zs else ()
@@ -188,3 +195,20 @@ def trends_view(settings: Any, length_unit: str = "bohr") -> TrendScene:
         subshell=settings.subshell if (kind.per_subshell or ionization) else None,
         methods=settings.method_list() if ionization else None)
     return trend_scene(trend, length_unit)
+
+
+def line_colours(scene: TrendScene) -> list[tuple[str, int]]:
+    """(colour, style index) of each line: one colour per model, or per subshell when the
+    trend shows several subshells (the colours of the radial view), the model then
+    setting the style."""
+    from zeffir.scene._colours import LINE_COLOURS, subshell_colour
+
+    models = list(dict.fromkeys(line.model for line in scene.lines))
+    out = []
+    for line in scene.lines:
+        rank = models.index(line.model)
+        if line.subshell is not None:
+            out.append((subshell_colour(line.subshell)[0], rank))
+        else:
+            out.append((LINE_COLOURS[rank % len(LINE_COLOURS)], 0))
+    return out

@@ -255,7 +255,8 @@ class TrendSettings:
     models : str
         Models separated by commas, one line each (at most six).
     subshell : str
-        For per-subshell quantities: a label such as ``3d``, or ``valence``.
+        For per-subshell quantities: a label such as ``3d``, or ``valence``; several
+        separated by commas (``3d,4s``), one line each.
     methods : str
         For ionization energies: ``koopmans``, ``delta-scf`` or both, separated by commas.
     """
@@ -300,10 +301,10 @@ class TrendSettings:
         methods = self.method_list()
         if not methods or any(m not in IONIZATION_METHODS for m in methods):
             raise StateError(f"trends.methods: choose {' and/or '.join(IONIZATION_METHODS)}")
-        label = self.subshell.strip()
-        if label != "valence" and not re.fullmatch(r"\d{1,2}[spdfghik]", label):
-            raise StateError(f"trends.subshell: {_shown(label)} is not a subshell label (e.g. 3d) "
-                             "or 'valence'")
+        for label in (part.strip() for part in self.subshell.split(",")):
+            if label != "valence" and not re.fullmatch(r"\d{1,2}[spdfghik]", label):
+                raise StateError(f"trends.subshell: {_shown(label)} is not a subshell label (e.g. 3d) "
+                                 "or 'valence'")
 
 
 @lru_cache(maxsize=64)

@@ -485,6 +485,7 @@ class MainWindow(QMainWindow):
         self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, self.profile_dock)
         self.profile_dock.hide()  # appears with the first profile
         self._profile_segment: tuple[str, int, tuple[float, float], tuple[float, float]] | None = None
+        self._profile_dock_parked = False  # hidden while the Trends view is shown
         for key, grid in self._trios.items():
             grid.set_setup(lambda view, k=key, g=grid: self._setup_panel(k, g, view))
         self.profile_view.cleared.connect(self._clear_profile)
@@ -588,6 +589,14 @@ class MainWindow(QMainWindow):
         self.tabs.blockSignals(True)
         self.tabs.setCurrentIndex(_VIEWS.index(state.view))
         self.tabs.blockSignals(False)
+        # Line profiles belong to the plane views: their dock steps aside for the Trends
+        # view (which needs the height) and comes back after it.
+        if state.view == "trends" and not self.profile_dock.isHidden():
+            self._profile_dock_parked = True
+            self.profile_dock.hide()
+        elif state.view != "trends" and self._profile_dock_parked:
+            self._profile_dock_parked = False
+            self.profile_dock.show()
         self.compare_action.setChecked(state.compare.enabled)
         self.unit_actions[state.length_unit].setChecked(True)
         # Only the view on screen gets its panels now; a grid off screen is set when its

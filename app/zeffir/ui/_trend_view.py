@@ -18,11 +18,10 @@ import pyqtgraph as pg
 from PySide6.QtCore import QPointF, Qt, Signal
 from PySide6.QtWidgets import QLabel, QVBoxLayout, QWidget
 
-from zeffir.scene import TrendScene
+from zeffir.scene import TrendScene, line_colours
 from zeffir.ui._plot_style import (
     AXIS_COLOUR,
     MUTED_TEXT,
-    PALETTE,
     format_number,
     framed_axes,
     label_style,
@@ -35,6 +34,7 @@ __all__ = ["TrendView"]
 _METHOD_DASH = {None: Qt.PenStyle.SolidLine, "koopmans": Qt.PenStyle.SolidLine,
                 "delta-scf": Qt.PenStyle.DashLine}
 _SYMBOLS = ("o", "s", "d", "t", "t1", "p", "h", "star")
+_MODEL_DASH = (Qt.PenStyle.SolidLine, Qt.PenStyle.DashLine, Qt.PenStyle.DotLine, Qt.PenStyle.DashDotLine)
 _BLOCK_BRUSH = {"s": (238, 238, 238), "p": (255, 255, 255), "d": (230, 237, 246), "f": (246, 239, 230)}
 _EMPTY = ("Choose a quantity, the configurations and the models in the Trends group; "
           "one line per model appears here.")
@@ -69,6 +69,10 @@ class TrendView(QWidget):
             style_plot(plot)
         self.difference.setXLink(self.main)
         self.graphics.ci.layout.setRowStretchFactor(1, 2)
+        # A short window still shows the plots (the table and docks give way first).
+        self.main.setMinimumHeight(100)
+        self.difference.setMinimumHeight(50)
+        self.graphics.setMinimumHeight(215)
         self.readout = QLabel(_EMPTY)
         self.readout.setWordWrap(True)
         self.readout.setStyleSheet(f"color: {MUTED_TEXT};")
@@ -94,11 +98,10 @@ class TrendView(QWidget):
         self._lines.clear()
         self.title.setText(f'<span style="font-size:11pt; color:{AXIS_COLOUR}">{html.escape(scene.title)}'
                            "</span>")
-        colours = {model: PALETTE[i % len(PALETTE)]
-                   for i, model in enumerate(dict.fromkeys(line.model for line in scene.lines))}
+        styles = line_colours(scene)
         self._shade(self.main, scene, letters=True)
         for index, line in enumerate(scene.lines):
-            item = self._line(self.main, line, colours[line.model], index)
+            item = self._line(self.main, line, styles[index], index)
             empty = all(math.isnan(v) for v in line.y)
             self.legend.addItem(item, html.escape(f"{line.name}{' (no values)' if empty else ''}"))
             self._lines[line.name] = (np.asarray(line.x), np.asarray(line.y))
@@ -111,11 +114,11 @@ class TrendView(QWidget):
             self._lines[scene.reference.name] = (np.asarray(scene.reference.x), np.asarray(scene.reference.y))
             self._shade(self.difference, scene, letters=False)
             for index, line in enumerate(scene.differences):
-                self._line(self.difference, line, colours[line.model], index)
+                self._line(self.difference, line, styles[index], index)
             zero = pg.InfiniteLine(pos=0.0, angle=0, pen=make_pen("#606060", 1.0))
             self.difference.addItem(zero)
             unit = f" / {scene.unit}" if scene.unit else ""
-            self.difference.setLabel("left", html.escape(f"computed − NIST{unit}"), **label_style(9))
+            self.difference.setLabel("left", f"computed −<br>NIST{html.escape(unit)}", **label_style(8))
             self.difference.setLabel("bottom", html.escape(scene.x_label), **label_style())
             if self.difference.scene() is None:  # a row of its own only while it has content
                 self.graphics.addItem(self.difference, row=2, col=0)
@@ -136,8 +139,12 @@ class TrendView(QWidget):
         self._place_letters()
         self.readout.setText(self._summary(scene))
 
-    def _line(self, plot: pg.PlotItem, line: Any, colour: str, index: int) -> pg.PlotDataItem:
-        pen = make_pen(colour, 1.6, _METHOD_DASH.get(line.method, Qt.PenStyle.SolidLine))
+    def _line(self, plot: pg.PlotItem, line: Any, style: tuple[str, int], index: int) -> pg.PlotDataItem:
+        colour, rank = style
+        dash = _METHOD_DASH.get(line.method, Qt.PenStyle.SolidLine)
+        if line.subshell is not None and rank:  # several subshells: the model sets the style
+            dash = _MODEL_DASH[rank % len(_MODEL_DASH)]
+        pen = make_pen(colour, 1.6, dash)
         item = pg.PlotDataItem(list(line.x), list(line.y), pen=pen, connect="finite",
                                symbol=_SYMBOLS[index % len(_SYMBOLS)], symbolSize=6,
                                symbolPen=make_pen(colour, 1.0), symbolBrush=pg.mkBrush(colour),

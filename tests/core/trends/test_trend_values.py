@@ -124,3 +124,18 @@ def test_the_measured_table_covers_z_1_to_104_from_nist():
     helium = measured_first_ionization(2)
     assert helium.energy == pytest.approx(helium.energy_ev / EV_PER_HARTREE, rel=1e-15)
     assert math.isclose(max((measured_first_ionization(z).energy_ev, z) for z in range(1, 105))[1], 2)
+
+
+def test_several_subshells_give_one_series_each():
+    trend = evaluate_trend(parse_rule("Z=21-23"), ["hartree-fock"], "energy", subshell="3d, 4s",
+                           processes=1, cache=False)
+    assert trend.subshell == "3d,4s"
+    assert [(s.model, s.subshell) for s in trend.series] == [("hartree-fock", "3d"), ("hartree-fock", "4s")]
+    d, s = ([p.value for p in series.points] for series in trend.series)
+    # Hartree–Fock puts the 3d orbital energy below the 4s one across Sc–V (the table agrees).
+    assert all(a < b < 0 for a, b in zip(d, s, strict=True))
+    assert d[0] == table_json("Sc", "hartree-fock")["subshells"][-2]["energy_hartree"]
+    delta = evaluate_trend(["Sc"], ["hartree-fock"], "ionization_energy", subshell="3d,4s",
+                           methods=["koopmans", "delta-scf"], processes=1, cache=False)
+    assert [(s.method, s.subshell) for s in delta.series] == [
+        ("koopmans", "3d"), ("koopmans", "4s"), ("delta-scf", None)]  # ΔSCF is one per atom

@@ -56,11 +56,13 @@ class TrendPoint:
 
 @dataclass(frozen=True, slots=True)
 class TrendSeries:
-    """One model's points (and, for ionization energies, the method)."""
+    """One model's points (and, for ionization energies, the method; with several
+    subshells, the subshell)."""
 
     model: str
     method: str | None
     points: tuple[TrendPoint, ...]
+    subshell: str | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -95,7 +97,7 @@ class Trend:
             "quantity": self.quantity.name,
             "unit": self.quantity.unit,
             "subshell": self.subshell,
-            "series": [{"model": s.model, "method": s.method,
+            "series": [{"model": s.model, "method": s.method, "subshell": s.subshell,
                         "points": [{"spec": p.spec, "Z": p.Z, "charge": p.charge, "value": p.value,
                                     "notes": list(p.notes)} for p in s.points]}
                        for s in self.series],
@@ -130,7 +132,8 @@ def evaluate_trend(
         A name of :func:`~zeffir.core.trends.quantity_names`.
     subshell : str, optional
         For per-subshell quantities (and Koopmans ionization energies): a label such
-        as ``"3d"``, or ``"valence"`` (the default), the outermost occupied subshell.
+        as ``"3d"``, or ``"valence"`` (the default), the outermost occupied subshell;
+        several separated by commas (``"3d,4s"``) give one series each per model.
     methods : sequence of str, optional
         For ``ionization_energy``: ``koopmans`` and/or ``delta-scf`` (default
         ``koopmans``).
@@ -180,6 +183,7 @@ def evaluate_trend(
         raise TrendQuantityError("name at least one model")
     chosen = _methods(kind, methods)
     label = _subshell_choice(kind, subshell)
+    labels = (None,) if label is None else tuple(part.strip() for part in label.split(","))
     ions = {spec: _ion_of(parsed[spec].Z, parsed[spec].charge) for spec in spec_list} \
         if "delta-scf" in chosen else {}
     series = []
@@ -188,10 +192,13 @@ def evaluate_trend(
         built = {p.spec: p for p in build_many(wanted, model, processes=processes, cache=cache,
                                                progress=progress, should_stop=should_stop)}
         for method in chosen:
-            points = tuple(_point(spec, parsed[spec].Z, parsed[spec].charge, built[spec], kind, label,
-                                  method, built.get(ions.get(spec) or ""), ions.get(spec))
-                           for spec in spec_list)
-            series.append(TrendSeries(model, method, points))
+            # ΔSCF belongs to the whole atom: one series whatever the subshells.
+            for one in (labels if method != "delta-scf" else labels[:1]):
+                points = tuple(_point(spec, parsed[spec].Z, parsed[spec].charge, built[spec], kind, one,
+                                      method, built.get(ions.get(spec) or ""), ions.get(spec))
+                               for spec in spec_list)
+                mine = one if len(labels) > 1 and method != "delta-scf" else None
+                series.append(TrendSeries(model, method, points, mine))
     reference = None
     if kind.name == "ionization_energy":
         measured = [ReferencePoint(z, 0, m.energy) for z in dict.fromkeys(
@@ -221,14 +228,19 @@ def _subshell_choice(kind: TrendQuantity, subshell: str | None) -> str | None:
             raise TrendQuantityError(f"{kind.name} belongs to the whole atom: leave out the subshell")
         return None
     text = (subshell or "valence").strip()
-    if text != "valence":
+    parts = [part.strip() for part in text.split(",")]
+    if any(not part for part in parts):
+        raise TrendQuantityError(f"{text}: an empty subshell in the list")
+    for part in parts:
+        if part == "valence":
+            continue
         from zeffir.core.config import parse_subshell_token
 
         try:
-            parse_subshell_token(text)
+            parse_subshell_token(part)
         except ZeffirError as error:
-            raise TrendQuantityError(f"{text}: not a subshell label (e.g. 3d) or 'valence'") from error
-    return text
+            raise TrendQuantityError(f"{part}: not a subshell label (e.g. 3d) or 'valence'") from error
+    return ",".join(dict.fromkeys(parts))
 
 
 def _ion_of(z: int, charge: int) -> str | None:
