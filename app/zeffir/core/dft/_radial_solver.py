@@ -19,12 +19,14 @@ W. R. Johnson, *Atomic Structure Theory* (Springer, 2007), §2.3 (the same schem
 
 from __future__ import annotations
 
-import itertools
 import math
 from dataclasses import dataclass
+from functools import cache
+from typing import Any
 
 import numpy as np
 
+from zeffir.core._acceleration import compiled_kernels_enabled
 from zeffir.core._errors import ZeffirError
 from zeffir.core.dft._radial_grid import LogGrid
 from zeffir.core.orbitals import FloatArray
@@ -51,6 +53,24 @@ class RadialSolution:
     energy: float
     u: FloatArray
     steps: int
+
+
+@cache
+def _compiled() -> Any:
+    """The compiled recurrences, or None when switched off (``ZEFFIR_NO_NUMBA``) or missing."""
+    try:
+        from zeffir.core.dft import _numerov_compiled
+    except ImportError:  # pragma: no cover - numba is a declared dependency
+        return None
+    return _numerov_compiled
+
+
+def _recurrences() -> tuple[Any, Any, bool]:
+    """(outward, inward, takes arrays): compiled when enabled, else the Python loops."""
+    compiled = _compiled() if compiled_kernels_enabled() else None
+    if compiled is None:
+        return _numerov_out, _numerov_in, False
+    return compiled.numerov_out, compiled.numerov_in, True
 
 
 def _numerov_out(f: list[float], phi0: float, phi1: float, stop: int) -> list[float]:
@@ -121,18 +141,20 @@ def solve_radial(grid: LogGrid, potential: FloatArray, n: int, l: int, z: float,
         raise RadialEigenError(f"{n}{'spdfghik'[l]}: the potential binds no state on this grid")
     energy = guess if guess is not None and low < guess < high else 0.5 * (low + high)
     last_index = r.size - 1
+    outward, inward, arrays = _recurrences()
     for step in range(1, MAX_STEPS + 1):
         g = langer + 2.0 * r * r * (v - energy)
-        f = (1.0 - h2 * g).tolist()
+        f = 1.0 - h2 * g if arrays else (1.0 - h2 * g).tolist()
         inside = np.flatnonzero(effective < energy)
         if inside.size == 0:
             low = energy
             energy = 0.5 * (low + high)
             continue
         m = int(min(max(inside[-1], 2), last_index - 3))
-        phi_out = _numerov_out(f, r[0] ** (l + 0.5) * (1.0 - z * r[0] / (l + 1)),
-                               r[1] ** (l + 0.5) * (1.0 - z * r[1] / (l + 1)), m + 1)
-        nodes = sum(1 for a, b in itertools.pairwise(phi_out[:m + 1]) if a * b < 0)
+        phi_out = outward(f, float(r[0] ** (l + 0.5) * (1.0 - z * r[0] / (l + 1))),
+                          float(r[1] ** (l + 0.5) * (1.0 - z * r[1] / (l + 1))), m + 1)
+        head = np.asarray(phi_out[:m + 1])
+        nodes = int(np.count_nonzero(head[1:] * head[:-1] < 0))
         if nodes != nodes_wanted:
             if nodes > nodes_wanted:
                 high = energy
@@ -145,7 +167,7 @@ def solve_radial(grid: LogGrid, potential: FloatArray, n: int, l: int, z: float,
         kappa = math.sqrt(max(2.0 * (v[-1] - energy), 1e-12))
         reach = r[m] + DECAY / kappa
         end = int(min(last_index - 1, max(m + 3, np.searchsorted(r, reach))))
-        phi_in = _numerov_in(f, end, m - 1, 1e-30)
+        phi_in = inward(f, end, m - 1, 1e-30)
         scale = phi_out[m] / phi_in[m]
         d_out = (phi_out[m + 1] - phi_out[m - 1]) / (2.0 * grid.h)
         d_in = scale * (phi_in[m + 1] - phi_in[m - 1]) / (2.0 * grid.h)
@@ -163,7 +185,8 @@ def solve_radial(grid: LogGrid, potential: FloatArray, n: int, l: int, z: float,
             high = energy
         proposed = energy + correction
         energy = proposed if low < proposed < high else 0.5 * (low + high)
-        if abs(correction) <= tolerance * max(1.0, abs(energy)):
+        if (abs(correction) <= tolerance * max(1.0, abs(energy))
+                or high - low <= 4e-15 * max(1.0, abs(energy))):  # bracketed to rounding
             # Positive near the nucleus: the outward start is r^{l+½}(1 − zr/(l+1)) > 0.
             return RadialSolution(n, l, energy, u / math.sqrt(norm), step)
     raise RadialEigenError(f"{n}{'spdfghik'[l]}: the eigenvalue search did not settle "

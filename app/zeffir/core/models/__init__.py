@@ -2,6 +2,7 @@
 
 from zeffir.core.models._clementi import ClementiModel, clementi_z_eff
 from zeffir.core.models._hydrogenic import HydrogenicModel
+from zeffir.core.models._lda import LDAModel
 from zeffir.core.models._registry import (
     DEFAULT_MODEL,
     Model,
@@ -26,6 +27,7 @@ register(VariationalModel())
 register(HartreeFockModel())
 register(HartreeFockModel("hartree-fock-average", "Hartree–Fock, average of configuration",
                           "Roothaan 1960 (method); Slater 1960 (average of configuration)", average=True))
+register(LDAModel())
 
 __all__ = [
     "DEFAULT_MODEL",
@@ -33,6 +35,7 @@ __all__ = [
     "ClementiModel",
     "HartreeFockModel",
     "HydrogenicModel",
+    "LDAModel",
     "Model",
     "SlaterRulesModel",
     "VariationalModel",
