@@ -24,3 +24,27 @@ def test_the_table_covers_z_1_to_92():
 @pytest.mark.parametrize(("z", "symbol", "energy"), _TABLE, ids=[s for _, s, _ in _TABLE])
 def test_lda_total_energy_matches_nist(z, symbol, energy):
     assert build(symbol, "lda").total_energy == pytest.approx(energy, abs=2e-6)
+
+
+# NIST SRD 141, magnesium table (physics.nist.gov/PhysRefData/DFTdata/Tables/12Mg.html),
+# LDA column: Etot, Ekin, Ecoul (Hartree), Eenuc, Exc, then the eigenvalues, hartree.
+_MAGNESIUM = {
+    "Mg": ((-199.139406, 198.541505, 95.673290, -477.899149, -15.455051),
+           {"1s": -45.973167, "2s": -2.903746, "2p": -1.718970, "3s": -0.175427}),
+    "Mg+": ((-198.843406, 198.263199, 91.895741, -473.740438, -15.261908),
+            {"1s": -46.312649, "2s": -3.238150, "2p": -2.052878, "3s": -0.422702}),
+}
+
+
+@pytest.mark.parametrize("spec", sorted(_MAGNESIUM))
+def test_magnesium_energy_parts_and_eigenvalues_match_nist(spec):
+    from zeffir.core import parse_spec
+    from zeffir.core.dft._lda_atom import solve_lda
+
+    (total, kinetic, hartree, nuclear, xc), eigenvalues = _MAGNESIUM[spec]
+    result = solve_lda(parse_spec(spec))
+    parts = (result.total_energy, result.kinetic, result.hartree, result.nuclear, result.xc)
+    assert parts == pytest.approx((total, kinetic, hartree, nuclear, xc), abs=2e-6)
+    orbitals = build(spec, "lda")
+    for label, value in eigenvalues.items():
+        assert orbitals.orbital(label).energy == pytest.approx(value, abs=2e-6)
