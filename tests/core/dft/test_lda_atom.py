@@ -56,3 +56,14 @@ def test_exchange_correlation_is_the_derivative_of_its_energy_density():
     eps_x_only = -0.75 * (3 / math.pi) ** (1 / 3) * rho ** (1 / 3)
     assert np.all(eps < eps_x_only)  # correlation lowers the energy
     assert lda_xc(np.array([0.0]))[0][0] == 0.0
+
+
+def test_an_unbound_anion_is_refused_with_the_reason():
+    # LDA's self-interaction error leaves the extra electron of H⁻ and F⁻ with a positive
+    # eigenvalue (a well-known failure of the local approximation for anions).
+    from zeffir.core import ModelError, build
+
+    for spec, label in (("H-", "1s"), ("F-", "2p")):
+        with pytest.raises(ModelError, match=f"the {label} electron is not bound in LDA"):
+            build(spec, "lda")
+    assert build("F", "lda").orbital("2p").energy < 0

@@ -27,7 +27,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from zeffir.core._cancel import report_progress, should_stop
-from zeffir.core._errors import ComputationCancelled, ZeffirError
+from zeffir.core._errors import ComputationCancelled, ModelError
 from zeffir.core.config import Configuration
 from zeffir.core.dft._radial_grid import LogGrid
 from zeffir.core.dft._radial_solver import RadialSolution, solve_radial
@@ -43,8 +43,8 @@ _MIX = 0.35
 _MAX_ITERATIONS = 300
 
 
-class LDAError(ZeffirError):
-    """The self-consistent LDA iteration did not settle."""
+class LDAError(ModelError):
+    """The self-consistent LDA iteration did not settle, or an electron is not bound."""
 
 
 @dataclass(frozen=True)
@@ -110,6 +110,13 @@ def solve_lda(configuration: Configuration, grid: LogGrid | None = None,
         error = float(np.max(np.abs(residual)))
         report_progress(f"{configuration.spec} LDA iteration {iteration}: potential residual {error:.2e}")
         if error < tolerance:
+            unbound = [f"{n}{'spdfghik'[l]}" for (n, l, _f), s in zip(shells, solutions, strict=True)
+                       if not s.energy < 0.0]
+            if unbound:
+                raise LDAError(
+                    f"{configuration.spec}: the {', '.join(unbound)} electron is not bound in LDA "
+                    f"(its Kohn–Sham eigenvalue is not negative; the local density approximation's "
+                    f"self-interaction leaves anions such as H⁻ unbound)")
             eigen = sum(f * s.energy for (_n, _l, f), s in zip(shells, solutions, strict=True))
             hartree = 0.5 * grid.integrate(v_h * q)
             xc = grid.integrate(eps_xc * q)

@@ -27,7 +27,7 @@ from typing import Any
 import numpy as np
 
 from zeffir.core._acceleration import compiled_kernels_enabled
-from zeffir.core._errors import ZeffirError
+from zeffir.core._errors import ModelError
 from zeffir.core.dft._radial_grid import LogGrid
 from zeffir.core.orbitals import FloatArray
 
@@ -40,7 +40,7 @@ MAX_STEPS = 200
 DECAY = 60.0
 
 
-class RadialEigenError(ZeffirError):
+class RadialEigenError(ModelError):
     """No bound state with the requested quantum numbers in this potential and grid."""
 
 
