@@ -34,7 +34,7 @@ from zeffir.core.dft._radial_solver import RadialSolution, solve_radial
 from zeffir.core.dft._xc import lda_xc
 from zeffir.core.orbitals import FloatArray
 
-__all__ = ["LDA_TOLERANCE", "LDAResult", "solve_lda"]
+__all__ = ["LDA_TOLERANCE", "LDAError", "LDAResult", "solve_lda"]
 
 #: Converged when the largest r·|V_out − V_in| (hartree·bohr) is below this.
 LDA_TOLERANCE = 1e-9
@@ -123,8 +123,8 @@ def solve_lda(configuration: Configuration, grid: LogGrid | None = None,
             nuclear = -z * grid.integrate(q / r)
             kinetic = eigen - grid.integrate(v_in * q)
             total = kinetic + nuclear + hartree + xc
-            return LDAResult(configuration, grid, tuple(solutions), occupations, total, kinetic,
-                             nuclear, hartree, xc, iteration)
+            return LDAResult(configuration, grid, tuple(solutions), occupations, float(total),
+                             float(kinetic), float(nuclear), float(hartree), float(xc), iteration)
         history.append((v_in, residual))
         del history[:-_HISTORY]
         v_in = _extrapolate(history, r)

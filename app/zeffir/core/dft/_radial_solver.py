@@ -188,6 +188,6 @@ def solve_radial(grid: LogGrid, potential: FloatArray, n: int, l: int, z: float,
         if (abs(correction) <= tolerance * max(1.0, abs(energy))
                 or high - low <= 4e-15 * max(1.0, abs(energy))):  # bracketed to rounding
             # Positive near the nucleus: the outward start is r^{l+½}(1 − zr/(l+1)) > 0.
-            return RadialSolution(n, l, energy, u / math.sqrt(norm), step)
+            return RadialSolution(n, l, float(energy), u / math.sqrt(norm), step)
     raise RadialEigenError(f"{n}{'spdfghik'[l]}: the eigenvalue search did not settle "
                            f"(last bracket {low:.6g} … {high:.6g} hartree)")

@@ -48,7 +48,7 @@ class LDAModel:
 
     def build(self, configuration: Configuration) -> OrbitalSet:
         """Solve the Kohn–Sham equations for ``configuration`` and tabulate its orbitals."""
-        from zeffir.core.dft._lda_atom import solve_lda
+        from zeffir.core.dft import solve_lda
 
         result = solve_lda(configuration)
         r = result.grid.r
@@ -61,12 +61,12 @@ class LDAModel:
             radial = TabulatedRadial(sub.n, sub.l, r, state.u / r)
             z_eff = sub.n**2 * radial.expectation(-1)
             orbitals.append(SubshellOrbital(
-                sub, occ, radial, z_eff / sub.n, z_eff, None, state.energy,
+                sub, occ, radial, z_eff / sub.n, z_eff, None, float(state.energy),
                 (f"{sub.label}: ζ and Z_eff are effective values from <1/r> (Z_eff = n²<1/r>); "
                  "ε is the Kohn–Sham eigenvalue",)))
         notes = (f"Kohn–Sham LDA, spin-unpolarised, non-relativistic ({result.iterations} iterations "
                  f"on {result.grid.points} grid points); energy parts: kinetic {result.kinetic:.6f}, "
                  f"nuclear {result.nuclear:.6f}, Hartree {result.hartree:.6f}, "
                  f"exchange-correlation {result.xc:.6f} hartree",)
-        return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.total_energy,
+        return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=float(result.total_energy),
                           notes=notes)
