@@ -48,3 +48,17 @@ def test_magnesium_energy_parts_and_eigenvalues_match_nist(spec):
     orbitals = build(spec, "lda")
     for label, value in eigenvalues.items():
         assert orbitals.orbital(label).energy == pytest.approx(value, abs=2e-6)
+
+
+def test_the_table_json_carries_the_energy_parts():
+    from zeffir.cli import table_json
+
+    (total, kinetic, hartree, nuclear, xc), _eigenvalues = _MAGNESIUM["Mg"]
+    data = table_json("Mg", "lda")
+    assert data["total_energy_hartree"] == pytest.approx(total, abs=2e-6)
+    parts = data["energy_components_hartree"]
+    assert set(parts) == {"kinetic", "nuclear", "hartree", "xc"}
+    assert (parts["kinetic"], parts["nuclear"], parts["hartree"], parts["xc"]) == pytest.approx(
+        (kinetic, nuclear, hartree, xc), abs=2e-6)
+    assert sum(parts.values()) == pytest.approx(data["total_energy_hartree"], abs=1e-9)
+    assert table_json("Mg", "slater")["energy_components_hartree"] is None

@@ -44,6 +44,8 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
         ],
         "notes": [*orbitals.notes, configuration.origin_note],
         "virial_ratio": _finite_or_none(orbitals.virial_ratio),
+        "energy_components_hartree": (None if orbitals.energy_components is None
+                                      else {name: value for name, value in orbitals.energy_components}),
         **_correlation_fields(orbitals, model),
     }
 

@@ -68,5 +68,7 @@ class LDAModel:
                  f"on {result.grid.points} grid points); energy parts: kinetic {result.kinetic:.6f}, "
                  f"nuclear {result.nuclear:.6f}, Hartree {result.hartree:.6f}, "
                  f"exchange-correlation {result.xc:.6f} hartree",)
+        parts = (("kinetic", result.kinetic), ("nuclear", result.nuclear), ("hartree", result.hartree),
+                 ("xc", result.xc))
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=float(result.total_energy),
-                          notes=notes)
+                          notes=notes, energy_components=parts)

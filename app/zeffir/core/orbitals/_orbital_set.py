@@ -91,6 +91,9 @@ class OrbitalSet:
     virial_ratio : float or None
         -V/T of the total energy where the model minimises it (2 at a variational
         optimum that includes the scale of the orbitals).
+    energy_components : tuple of (str, float), or None
+        Parts of the total energy (hartree) where the model gives them, e.g. the
+        Kohn–Sham ``kinetic``, ``nuclear``, ``hartree`` and ``xc`` terms of ``lda``.
     memo : dict
         Derived data cached by evaluators (e.g. a tabulated density profile); the
         set itself never changes, so cached values stay valid.
@@ -115,6 +118,7 @@ class OrbitalSet:
     total_energy: float | None = None
     notes: tuple[str, ...] = ()
     virial_ratio: float | None = None
+    energy_components: tuple[tuple[str, float], ...] | None = None
     memo: dict[str, object] = field(default_factory=dict, compare=False, repr=False)
 
     def orbital(self, label: str | Subshell) -> SubshellOrbital:
