@@ -320,6 +320,20 @@ def spin_density_on_plane(
     return out
 
 
+def _reference_terms(orbitals: OrbitalSet, plane: Plane, r1: npt.ArrayLike, spin: int,
+                     determinant: Determinant | None, require_density: bool = True,
+                     ) -> tuple[_PlaneData, list[_Term], float]:
+    """The plane data, γ^σ(r1, ·) as terms and ρ^σ(r1) for a reference electron of ``spin``."""
+    _check_spin(spin)
+    point = _reference_point(r1)
+    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == spin]
+    data = _plane_data(orbitals, plane)
+    terms, rho = _one_matrix_terms(blocks, plane, point, data)
+    if require_density and not rho > 0:
+        raise _no_density(spin, point)
+    return data, terms, rho
+
+
 def exchange_hole_on_plane(
     orbitals: OrbitalSet,
     plane: Plane,
@@ -370,13 +384,7 @@ def exchange_hole_on_plane(
     >>> bool(np.isclose(hole[3, 3], -spin_density(oxygen, (0.5, 0.0, 0.5), -1)))
     True
     """
-    _check_spin(spin)
-    point = _reference_point(r1)
-    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == spin]
-    data = _plane_data(orbitals, plane)
-    terms, rho = _one_matrix_terms(blocks, plane, point, data)
-    if not rho > 0:
-        raise _no_density(spin, point)
+    data, terms, rho = _reference_terms(orbitals, plane, r1, spin, determinant)
     return _modulus_squared(plane, data, terms, -1.0 / rho, np.zeros((1, 1)), 0.0)
 
 
@@ -414,13 +422,7 @@ def conditional_density_on_plane(
     >>> bool(np.isclose(others[3, 3], spherical_density(neon, np.sqrt(0.5)) / 2))
     True
     """
-    _check_spin(spin)
-    point = _reference_point(r1)
-    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == spin]
-    data = _plane_data(orbitals, plane)
-    terms, rho = _one_matrix_terms(blocks, plane, point, data)
-    if not rho > 0:
-        raise _no_density(spin, point)
+    data, terms, rho = _reference_terms(orbitals, plane, r1, spin, determinant)
     spherical, rest = _density(orbitals, plane, determinant, None)
     out = _modulus_squared(plane, data, terms, -1.0 / rho, spherical, 1.0)
     if rest is not None:
@@ -469,12 +471,8 @@ def pair_density_on_plane(
     True
     """
     s1, s2 = spins
-    _check_spin(s1)
     _check_spin(s2)
-    point = _reference_point(r1)
-    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == s1]
-    data = _plane_data(orbitals, plane)
-    terms, rho1 = _one_matrix_terms(blocks, plane, point, data)
+    data, terms, rho1 = _reference_terms(orbitals, plane, r1, s1, determinant, require_density=False)
     spherical, rest = _density(orbitals, plane, determinant, s2)
     if s1 != s2:
         terms = []
@@ -543,13 +541,7 @@ def reference_panels_on_plane(
     >>> bool(np.allclose(panels.same_spin, rho_up + panels.exchange_hole))
     True
     """
-    _check_spin(spin)
-    point = _reference_point(r1)
-    blocks = [b for b in _blocks(orbitals, determinant) if b.spin == spin]
-    data = _plane_data(orbitals, plane)
-    terms, rho = _one_matrix_terms(blocks, plane, point, data)
-    if not rho > 0:
-        raise _no_density(spin, point)
+    data, terms, rho = _reference_terms(orbitals, plane, r1, spin, determinant)
     hole = _modulus_squared(plane, data, terms, -1.0 / rho, np.zeros((1, 1)), 0.0)
     same = spin_density_on_plane(orbitals, plane, spin, determinant)
     same += hole
