@@ -107,7 +107,7 @@ def _check_out(path: str) -> None:
     target = Path(path)
     if target.suffix.lower() not in TREND_FORMATS:
         raise _InputError(f"--out {path}: a trend is written as {', '.join(TREND_FORMATS)}")
-    if not target.parent.exists() if str(target.parent) else False:
+    if not target.parent.is_dir():
         raise _InputError(f"--out {path}: the folder {target.parent} does not exist")
 
 

@@ -159,9 +159,8 @@ def trend_csv_text(scene: TrendScene) -> str:
     rows = []
     by_spec = [dict(zip(line.specs, line.y, strict=True)) for line in scene.lines]
     differences = [dict(zip(line.specs, line.y, strict=True)) for line in scene.differences]
-    charges = _charges(first.specs)
     for index, spec in enumerate(first.specs):
-        cells = [spec, str(_z_of(spec)), str(charges[index]), repr(first.x[index]),
+        cells = [spec, str(scene.zs[index]), str(scene.charges[index]), repr(first.x[index]),
                  *(_number(values.get(spec, math.nan)) for values in by_spec)]
         if scene.reference is not None:
             cells += [_number(reference.get(spec, math.nan)),
@@ -173,15 +172,3 @@ def trend_csv_text(scene: TrendScene) -> str:
 
 def _quoted(cell: str) -> str:
     return f'"{cell}"' if ("," in cell or " " in cell) else cell
-
-
-def _z_of(spec: str) -> int:
-    from zeffir.core import parse_spec
-
-    return parse_spec(spec).Z
-
-
-def _charges(specs: tuple[str, ...]) -> list[int]:
-    from zeffir.core import parse_spec
-
-    return [parse_spec(spec).charge for spec in specs]

@@ -16,6 +16,7 @@ from typing import Any
 import zeffir.core
 from zeffir.core.config import madelung_order
 from zeffir.core.trends import Trend, TrendQuantity
+from zeffir.scene._build import model_title
 from zeffir.scene._quantities import length_factor, length_symbol
 
 __all__ = ["TrendLine", "TrendScene", "element_blocks", "line_colours", "trend_scene", "trends_view"]
@@ -61,6 +62,8 @@ class TrendScene:
         The core quantity name.
     length_unit : str
         ``bohr`` or ``angstrom`` (energies in hartree or eV with them).
+    zs, charges : tuple of int
+        Z and charge of each configuration, in the order of the lines' points.
     """
 
     title: str
@@ -75,6 +78,9 @@ class TrendScene:
     blocks: tuple[tuple[float, float, str], ...]
     quantity: str
     length_unit: str
+    #: Z and charge of each configuration, in the order of the lines' points.
+    zs: tuple[int, ...] = ()
+    charges: tuple[int, ...] = ()
 
 
 def _display(kind: TrendQuantity, length_unit: str) -> tuple[float, str]:
@@ -137,7 +143,7 @@ def trend_scene(trend: Trend, length_unit: str = "bohr") -> TrendScene:
     where = {p.spec: x for x, p in zip(xs, first, strict=True)}
     lines = []
     for series in trend.series:
-        title = _model_title(series.model)
+        title = model_title(series.model)
         if series.subshell is not None:
             title = f"{title}, {series.subshell}"
         name = title if series.method is None else (
@@ -164,24 +170,19 @@ def trend_scene(trend: Trend, length_unit: str = "bohr") -> TrendScene:
                       for y, v in zip(line.y, values, strict=True)),
                 line.specs, line.notes, line.subshell))
     subject = kind.title
-    if kind.per_subshell or (kind.name == "ionization_energy" and trend.subshell not in (None, "valence")):
-        where_text = ("valence subshell" if trend.subshell in (None, "valence") else
-                      trend.subshell.replace(",", " and ") if "," in trend.subshell else trend.subshell)
-        subject = f"{kind.title} of the {where_text}" if "," not in (trend.subshell or "") \
-            else f"{kind.title}: {where_text}"
+    label = trend.subshell or "valence"
+    if "," in label:  # several subshells, one line each
+        subject = f"{kind.title}: {label.replace(',', ' and ')}"
+    elif kind.per_subshell or (kind.name == "ionization_energy" and label != "valence"):
+        subject = f"{kind.title} of the {'valence subshell' if label == 'valence' else label}"
     y_label = f"{subject} / {unit}" if unit else subject
     span = f"{first[0].spec} … {first[-1].spec}" if len(first) > 1 else (first[0].spec if first else "")
     blocks = element_blocks(min(zs), max(zs)) if by_z and zs else ()
     return TrendScene(
         title=f"{kind.title[0].upper()}{kind.title[1:]}: {span}", x_label="Z" if by_z else "configuration",
         y_label=y_label, unit=unit, by_z=by_z, x_ticks=ticks, lines=tuple(lines), reference=reference,
-        differences=tuple(differences), blocks=blocks, quantity=kind.name, length_unit=length_unit)
-
-
-def _model_title(model: str) -> str:
-    from zeffir.scene._build import model_title
-
-    return model_title(model)
+        differences=tuple(differences), blocks=blocks, quantity=kind.name, length_unit=length_unit,
+        zs=tuple(zs), charges=tuple(p.charge for p in first))
 
 
 def trends_view(settings: Any, length_unit: str = "bohr") -> TrendScene:

@@ -186,9 +186,9 @@ def evaluate_trend(
     labels = (None,) if label is None else tuple(part.strip() for part in label.split(","))
     ions = {spec: _ion_of(parsed[spec].Z, parsed[spec].charge) for spec in spec_list} \
         if "delta-scf" in chosen else {}
+    wanted = list(dict.fromkeys([*spec_list, *(i for i in ions.values() if i is not None)]))
     series = []
     for model in models:
-        wanted = list(dict.fromkeys([*spec_list, *(i for i in ions.values() if i is not None)]))
         built = {p.spec: p for p in build_many(wanted, model, processes=processes, cache=cache,
                                                progress=progress, should_stop=should_stop)}
         for method in chosen:

@@ -1,9 +1,9 @@
 """What a trend plots: per-subshell and per-atom quantities, in atomic units.
 
-Every value is taken from the functions the subshell table uses
-(:func:`~zeffir.core.properties.summarise` and
-:func:`~zeffir.core.properties.energy_summary`), so a trend point and ``zeffir table``
-never disagree.
+Every value is read as the subshell table reads it (the orbital's fields, its radial
+function's ``expectation`` and ``r_max``, as :func:`~zeffir.core.properties.summarise`
+does, and :func:`~zeffir.core.properties.energy_summary`), so a trend point and
+``zeffir table`` never disagree.
 """
 
 from __future__ import annotations
@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 from zeffir.core._errors import ZeffirError
 from zeffir.core.orbitals import OrbitalSet, SubshellOrbital
-from zeffir.core.properties import energy_summary, summarise
+from zeffir.core.properties import energy_summary
 
 __all__ = [
     "ATOM_QUANTITIES",
@@ -111,23 +111,26 @@ def valence_subshell(orbitals: OrbitalSet) -> SubshellOrbital:
     return max(orbitals.orbitals, key=lambda o: (o.n, o.l))
 
 
+_GETTERS: dict[str, Callable[[SubshellOrbital], float | None]] = {
+    "zeta": lambda o: o.zeta,
+    "z_eff": lambda o: o.z_eff,
+    "n_star": lambda o: o.n_star,
+    "energy": lambda o: o.energy,
+    "r_max": lambda o: o.radial.r_max(),
+}
+
+
 def subshell_value(kind: TrendQuantity, orbital: SubshellOrbital) -> tuple[float | None, str | None]:
     """The value of a per-subshell quantity, or None and why."""
-    getters: dict[str, Callable[[SubshellOrbital], float | None]] = {
-        "zeta": lambda o: o.zeta,
-        "z_eff": lambda o: o.z_eff,
-        "n_star": lambda o: o.n_star,
-        "energy": lambda o: o.energy,
-        "r_max": lambda o: summarise(o).r_max,
-    }
     if kind.power is not None:
         if kind.power == 0:
             return 1.0, None
-        moment = summarise(orbital).moments[kind.power]  # the table's ⟨r^k⟩, k = −3 … 2
+        # The same calls the subshell table makes (summarise), without its other columns.
+        moment = orbital.radial.expectation(kind.power)
         if not math.isfinite(moment):
             return None, f"⟨r^{kind.power}⟩ diverges for an s orbital"
         return float(moment), None
-    value = getters[kind.name](orbital)
+    value = _GETTERS[kind.name](orbital)
     if value is None:
         return None, f"the model defines no {kind.title} for {orbital.label}"
     return float(value), None
