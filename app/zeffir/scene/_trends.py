@@ -11,13 +11,15 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from functools import lru_cache
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 import zeffir.core
 from zeffir.core.config import madelung_order
-from zeffir.core.trends import Trend, TrendQuantity
 from zeffir.scene._build import model_title
 from zeffir.scene._quantities import length_factor, length_symbol
+
+if TYPE_CHECKING:  # the trends package (and its process pool) loads when a trend is made
+    from zeffir.core.trends import Trend, TrendQuantity
 
 __all__ = ["TrendLine", "TrendScene", "element_blocks", "line_colours", "trend_scene", "trends_view"]
 

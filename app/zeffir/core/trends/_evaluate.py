@@ -10,13 +10,12 @@ from __future__ import annotations
 
 from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from zeffir.core._errors import ZeffirError
 from zeffir.core.config import parse_spec
 from zeffir.core.models import get_model
 from zeffir.core.orbitals import OrbitalSet
-from zeffir.core.sweep import DiskCache, SweepPoint, build_many
 from zeffir.core.trends._quantities import (
     TrendQuantity,
     TrendQuantityError,
@@ -27,6 +26,9 @@ from zeffir.core.trends._quantities import (
 )
 from zeffir.core.trends._reference import IONIZATION_SOURCE, measured_first_ionization
 from zeffir.core.trends._rules import TrendRuleError, ion_spec
+
+if TYPE_CHECKING:  # the sweep (multiprocessing) loads when a trend is evaluated
+    from zeffir.core.sweep import DiskCache, SweepPoint
 
 __all__ = [
     "IONIZATION_METHODS",
@@ -167,6 +169,8 @@ def evaluate_trend(
     >>> [round(p.value, 12) for p in trend.series[0].points]
     [1.3, 2.2, 2.2]
     """
+    from zeffir.core.sweep import build_many
+
     kind = quantity(quantity_name)
     spec_list = list(specs)
     if not spec_list:
