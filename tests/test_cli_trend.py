@@ -80,6 +80,7 @@ def test_the_csv_holds_the_values_and_the_reference(tmp_path, capsys):
     assert list(data["Z"]) == [2, 3, 4]
     # eV with --units angstrom; the difference is series − reference.
     np.testing.assert_allclose(data["difference_1"], data["series_1"] - data["reference"], atol=1e-9)
+    # He: 24.587389 eV, NIST ASD (the shipped first_ionization_energies.csv).
     assert data["reference"][0] == pytest.approx(24.587389, abs=1e-6)
     text = out.read_text()
     assert "# series_1: restricted Hartree–Fock, Koopmans" in text and "NIST" in text

@@ -69,10 +69,11 @@ class TrendView(QWidget):
             style_plot(plot)
         self.difference.setXLink(self.main)
         self.graphics.ci.layout.setRowStretchFactor(1, 2)
-        # A short window still shows the plots (the table and docks give way first).
+        # A short window still shows the plots; the widget's own minimum stays small, since a
+        # tab's minimum is every tab's (1280×720 must fit with the line-profile dock open).
         self.main.setMinimumHeight(100)
         self.difference.setMinimumHeight(50)
-        self.graphics.setMinimumHeight(215)
+        self.graphics.setMinimumHeight(150)
         self.readout = QLabel(_EMPTY)
         self.readout.setWordWrap(True)
         self.readout.setStyleSheet(f"color: {MUTED_TEXT};")
