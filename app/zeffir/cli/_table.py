@@ -7,6 +7,7 @@ from typing import Any
 
 from zeffir import __version__
 from zeffir.cli._common import JSON_FORMAT_VERSION, _finite_or_none
+from zeffir.core.properties._summary import occupancy_text
 
 
 def table_json(spec: str, model: str) -> dict[str, Any]:
@@ -38,6 +39,9 @@ def table_json(spec: str, model: str) -> dict[str, Any]:
                 "r_mean_bohr": row.r_mean,
                 "r_max_bohr": row.r_max,
                 "energy_hartree": _finite_or_none(row.energy),
+                "j": row.j,
+                "energy_up_hartree": _finite_or_none(row.energy_up),
+                "energy_down_hartree": _finite_or_none(row.energy_down),
                 "notes": list(row.notes),
             }
             for row in rows
@@ -89,12 +93,16 @@ def _format_table(spec: str, model: str, units: str) -> str:
         f"{'subshell':>8} {'occ':>4} {'ζ/' + lu + '⁻¹':>11} {'Z_eff':>8} {'n*':>5} "
         f"{'<r>/' + lu:>11} {'r_max/' + lu:>11} {'ε/' + eu:>12}",
     ]
+    spin_resolved = any(row.energy_up is not None or row.energy_down is not None for row in rows)
+    if spin_resolved:
+        lines[-1] += f" {'ε↓/' + eu:>12} {'ε↑/' + eu:>12}"
     for row in rows:
-        lines.append(
-            f"{row.label:>8} {row.occupancy:>4} {num(row.zeta, 1 / length):>11} "
-            f"{num(row.z_eff):>8} {num(row.n_star, digits=1):>5} {num(row.r_mean, length):>11} "
-            f"{num(row.r_max, length):>11} {num(row.energy, energy):>12}"
-        )
+        line = (f"{row.label:>8} {occupancy_text(row.occupancy):>4} {num(row.zeta, 1 / length):>11} "
+                f"{num(row.z_eff):>8} {num(row.n_star, digits=1):>5} {num(row.r_mean, length):>11} "
+                f"{num(row.r_max, length):>11} {num(row.energy, energy):>12}")
+        if spin_resolved:
+            line += f" {num(row.energy_down, energy):>12} {num(row.energy_up, energy):>12}"
+        lines.append(line)
     lines.append("")
     virial = ("" if orbitals.virial_ratio is None
               else f"   virial ratio −V/T: {orbitals.virial_ratio:.9f}")

@@ -18,7 +18,8 @@ __all__ = ["forget_failure", "model_title", "orbitals_for", "short_model_name"]
 # the standing strip and the titles' tooltips use the full titles.
 _SHORT_NAMES = {"hydrogenic": "hydrogenic", "slater": "Slater", "clementi": "Clementi–Raimondi",
                 "variational": "variational", "hartree-fock": "HF",
-                "hartree-fock-average": "HF average", "lda": "LDA"}
+                "hartree-fock-average": "HF average", "lda": "LDA", "lsda": "LSD",
+                "scalar-relativistic-lda": "ScRLDA", "relativistic-lda": "RLDA"}
 
 _MAX_FAILURES = 64
 _failures: dict[tuple[str, str], ZeffirError] = {}

@@ -10,6 +10,7 @@ from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTab
 
 import zeffir.core
 from zeffir.core import SubshellSummary
+from zeffir.core.properties._summary import occupancy_text
 
 __all__ = ["COLUMNS", "SubshellTable"]
 
@@ -114,7 +115,7 @@ class SubshellTable(QTableWidget):
         self.blockSignals(True)
         self.setRowCount(len(rows))
         for i, row in enumerate(rows):
-            cells = [row.label, str(row.occupancy), _num(row.zeta / length), _num(row.z_eff),
+            cells = [row.label, occupancy_text(row.occupancy), _num(row.zeta / length), _num(row.z_eff),
                      _num(row.n_star, 1), _num(row.r_mean * length), _num(row.r_max * length),
                      _num(None if row.energy is None else row.energy * energy),
                      _num(_moment(row, 2) * length**2), _num(_moment(row, -1) / length),
@@ -126,8 +127,12 @@ class SubshellTable(QTableWidget):
                 if column == 0 and row.notes:
                     item.setToolTip("\n".join(row.notes))
                     item.setText(f"{text} *")
+                if column == 7 and (row.energy_up is not None or row.energy_down is not None):
+                    item.setToolTip("Kohn–Sham eigenvalue per spin: "
+                                    f"ε↓ (majority) {_num(_scaled(row.energy_down, energy))}, "
+                                    f"ε↑ {_num(_scaled(row.energy_up, energy))} {eu}")
                 self.setItem(i, column, item)
-            if row.label == selected and (i == 0 or rows[i - 1].label != selected):
+            if row.subshell == selected and (i == 0 or rows[i - 1].subshell != selected):
                 self.selectRow(i)
         self.blockSignals(False)
 
@@ -141,7 +146,7 @@ class SubshellTable(QTableWidget):
     def select_subshell(self, label: str) -> None:
         """Select the row of ``label`` (if shown) without emitting ``subshell_selected``."""
         for i, row in enumerate(self._rows):
-            if row.label == label:
+            if row.subshell == label:
                 if self.currentRow() != i or not self.selectedIndexes():
                     self.blockSignals(True)
                     self.selectRow(i)
@@ -172,7 +177,11 @@ class SubshellTable(QTableWidget):
         if len(rows) == 1:
             row = rows.pop()
             if 0 <= row < len(self._rows):
-                self.subshell_selected.emit(self._rows[row].label)
+                self.subshell_selected.emit(self._rows[row].subshell)
+
+
+def _scaled(value: float | None, factor: float) -> float | None:
+    return None if value is None else value * factor
 
 
 def _num(value: float | None, digits: int = 4) -> str:

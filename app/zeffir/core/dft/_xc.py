@@ -21,13 +21,31 @@ from zeffir.core.orbitals import FloatArray
 
 __all__ = ["lda_xc"]
 
-# VWN paramagnetic parameters in hartree (A = 0.0621814/2 Ry → hartree).
-_A = 0.0310907
-_X0 = -0.10498
-_B = 3.72744
-_C = 12.9352
-_Q = math.sqrt(4.0 * _C - _B * _B)
-_X_X0 = _X0 * _X0 + _B * _X0 + _C
+# VWN paramagnetic parameters (A, x0, b, c) in hartree (A = 0.0621814/2 Ry → hartree).
+_PARAMAGNETIC = (0.0310907, -0.10498, 3.72744, 12.9352)
+
+
+def _vwn_fit(x: FloatArray, a: float, x0: float, b: float,
+             c: float) -> tuple[FloatArray, FloatArray]:
+    """VWN's interpolation formula G(x) and its derivative dG/dx at x = √r_s.
+
+    G = A{ln(x²/X) + (2b/Q)atan(Q/(2x + b)) − (bx0/X(x0))[ln((x − x0)²/X)
+    + (2(b + 2x0)/Q)atan(Q/(2x + b))]}, X = x² + bx + c, Q = √(4c − b²): the form
+    Vosko, Wilk and Nusair (1980) fit to the paramagnetic and ferromagnetic correlation
+    energies and to the spin stiffness, each with its own (A, x0, b, c).
+    """
+    q = math.sqrt(4.0 * c - b * b)
+    x_x0 = x0 * x0 + b * x0 + c
+    big_x = x * x + b * x + c
+    angle = np.arctan(q / (2.0 * x + b))
+    eps = a * (np.log(x * x / big_x) + 2.0 * b / q * angle
+               - b * x0 / x_x0 * (np.log((x - x0) ** 2 / big_x)
+                                  + 2.0 * (b + 2.0 * x0) / q * angle))
+    d_angle = -4.0 / ((2.0 * x + b) ** 2 + q * q)  # d/dx of (2/Q)·atan(Q/(2x + b))
+    de_dx = a * (2.0 / x - (2.0 * x + b) / big_x + b * d_angle
+                 - b * x0 / x_x0 * (2.0 / (x - x0) - (2.0 * x + b) / big_x
+                                    + (b + 2.0 * x0) * d_angle))
+    return eps, de_dx
 
 
 def lda_xc(density: FloatArray) -> tuple[FloatArray, FloatArray]:
@@ -53,15 +71,7 @@ def lda_xc(density: FloatArray) -> tuple[FloatArray, FloatArray]:
     v_x = -third
     rs = np.cbrt(3.0 / (4.0 * math.pi * n))
     x = np.sqrt(rs)
-    big_x = x * x + _B * x + _C
-    angle = np.arctan(_Q / (2.0 * x + _B))
-    eps_c = _A * (np.log(x * x / big_x) + 2.0 * _B / _Q * angle
-                  - _B * _X0 / _X_X0 * (np.log((x - _X0) ** 2 / big_x)
-                                          + 2.0 * (_B + 2.0 * _X0) / _Q * angle))
-    d_angle = -4.0 / ((2.0 * x + _B) ** 2 + _Q * _Q)  # d/dx of (2/Q)·atan(Q/(2x + b))
-    de_dx = _A * (2.0 / x - (2.0 * x + _B) / big_x + _B * d_angle
-                  - _B * _X0 / _X_X0 * (2.0 / (x - _X0) - (2.0 * x + _B) / big_x
-                                          + (_B + 2.0 * _X0) * d_angle))
+    eps_c, de_dx = _vwn_fit(x, *_PARAMAGNETIC)
     v_c = eps_c - x / 6.0 * de_dx
     eps[ok] = eps_x + eps_c
     pot[ok] = v_x + v_c

@@ -2,7 +2,7 @@
 
 from zeffir.core.models._clementi import ClementiModel, clementi_z_eff
 from zeffir.core.models._hydrogenic import HydrogenicModel
-from zeffir.core.models._lda import LDAModel
+from zeffir.core.models._lda import KohnShamModel, LDAModel, kohn_sham_models
 from zeffir.core.models._registry import (
     DEFAULT_MODEL,
     Model,
@@ -27,7 +27,8 @@ register(VariationalModel())
 register(HartreeFockModel())
 register(HartreeFockModel("hartree-fock-average", "Hartree–Fock, average of configuration",
                           "Roothaan 1960 (method); Slater 1960 (average of configuration)", average=True))
-register(LDAModel())
+for _model in kohn_sham_models():
+    register(_model)
 
 __all__ = [
     "DEFAULT_MODEL",
@@ -35,6 +36,7 @@ __all__ = [
     "ClementiModel",
     "HartreeFockModel",
     "HydrogenicModel",
+    "KohnShamModel",
     "LDAModel",
     "Model",
     "SlaterRulesModel",
@@ -42,6 +44,7 @@ __all__ = [
     "build",
     "clementi_z_eff",
     "get_model",
+    "kohn_sham_models",
     "model_names",
     "register",
     "slater_n_star",

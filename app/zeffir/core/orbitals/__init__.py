@@ -12,22 +12,24 @@ from zeffir.core.orbitals._angular import (
     solid_harmonic_monomials,
 )
 from zeffir.core.orbitals._hydrogenic import HydrogenicRadial, laguerre
-from zeffir.core.orbitals._orbital_set import OrbitalSet, SubshellOrbital
+from zeffir.core.orbitals._orbital_set import OrbitalComponent, OrbitalSet, SubshellOrbital
 from zeffir.core.orbitals._radial import FloatArray, RadialFunction
 from zeffir.core.orbitals._slater_expansion import SlaterExpansionRadial
 from zeffir.core.orbitals._slater_type import SlaterRadial
-from zeffir.core.orbitals._tabulated import TabulatedRadial, log_grid
+from zeffir.core.orbitals._tabulated import TabulatedRadial, TabulatedSpinorRadial, log_grid
 
 __all__ = [
     "FloatArray",
     "HydrogenicRadial",
     "Monomials",
+    "OrbitalComponent",
     "OrbitalSet",
     "RadialFunction",
     "SlaterExpansionRadial",
     "SlaterRadial",
     "SubshellOrbital",
     "TabulatedRadial",
+    "TabulatedSpinorRadial",
     "complex_from_real",
     "complex_harmonic",
     "laguerre",

@@ -8,7 +8,35 @@ from zeffir.core._errors import QuantumNumberError
 from zeffir.core.config import Configuration, Subshell
 from zeffir.core.orbitals._radial import RadialFunction
 
-__all__ = ["OrbitalSet", "SubshellOrbital"]
+__all__ = ["OrbitalComponent", "OrbitalSet", "SubshellOrbital"]
+
+
+@dataclass(frozen=True, slots=True)
+class OrbitalComponent:
+    """One part of a subshell that a model splits: a j level or one spin's orbital.
+
+    Attributes
+    ----------
+    label : str
+        ``'2p1/2'`` for a j level; the subshell's own label for a spin orbital.
+    j : float or None
+        Total angular momentum of a j level.
+    spin : str or None
+        ``'up'`` or ``'down'`` for a spin orbital ("down" is the majority spin).
+    occupancy : float
+        Electrons in it (fractional where a model shares a subshell's electrons).
+    energy : float or None
+        Its eigenvalue (hartree).
+    radial : RadialFunction
+        Its own radial function, normalised.
+    """
+
+    label: str
+    j: float | None
+    spin: str | None
+    occupancy: float
+    energy: float | None
+    radial: RadialFunction
 
 
 @dataclass(frozen=True, slots=True)
@@ -33,6 +61,10 @@ class SubshellOrbital:
         Orbital energy (hartree) where the model defines one.
     notes : tuple of str
         Where a value fell back to another rule, and why.
+    components : tuple of OrbitalComponent
+        The j levels (``relativistic-lda``) or spin orbitals (``lsda``) the subshell is
+        made of, empty where a model keeps one radial function per subshell. ``radial``
+        then carries the subshell's population-weighted density.
 
     Examples
     --------
@@ -55,6 +87,7 @@ class SubshellOrbital:
     n_star: float | None
     energy: float | None
     notes: tuple[str, ...] = ()
+    components: tuple[OrbitalComponent, ...] = ()
 
     @property
     def label(self) -> str:

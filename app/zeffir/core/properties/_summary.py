@@ -4,9 +4,9 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from zeffir.core.orbitals import OrbitalSet, RadialFunction, SubshellOrbital
+from zeffir.core.orbitals import OrbitalComponent, OrbitalSet, RadialFunction, SubshellOrbital
 
-__all__ = ["MOMENT_POWERS", "SubshellSummary", "moments", "subshell_table"]
+__all__ = ["MOMENT_POWERS", "SubshellSummary", "moments", "occupancy_text", "subshell_table"]
 
 #: Powers k of the radial moments <r^k> reported for every subshell.
 MOMENT_POWERS: tuple[int, ...] = (-3, -2, -1, 1, 2)
@@ -62,7 +62,7 @@ class SubshellSummary:
     label: str
     n: int
     l: int
-    occupancy: int
+    occupancy: int | float
     zeta: float
     z_eff: float
     n_star: float | None
@@ -72,6 +72,14 @@ class SubshellSummary:
     nodes: tuple[float, ...]
     moments: dict[int, float]
     notes: tuple[str, ...]
+    j: float | None = None
+    energy_up: float | None = None
+    energy_down: float | None = None
+
+    @property
+    def subshell(self) -> str:
+        """The row's subshell nl (``'2p'`` also for a ``'2p3/2'`` row)."""
+        return f"{self.n}{'spdfghik'[self.l]}"
 
 
 def summarise(orbital: SubshellOrbital) -> SubshellSummary:
@@ -89,6 +97,7 @@ def summarise(orbital: SubshellOrbital) -> SubshellSummary:
     (2.0, 2.5, (), -0.5)
     """
     values = moments(orbital.radial)
+    spins = {c.spin: c.energy for c in orbital.components if c.spin is not None}
     return SubshellSummary(
         label=orbital.label,
         n=orbital.n,
@@ -103,7 +112,21 @@ def summarise(orbital: SubshellOrbital) -> SubshellSummary:
         nodes=tuple(float(x) for x in orbital.radial.nodes()),
         moments=values,
         notes=orbital.notes,
+        energy_up=spins.get("up"),
+        energy_down=spins.get("down"),
     )
+
+
+def _summarise_level(orbital: SubshellOrbital, level: OrbitalComponent) -> SubshellSummary:
+    """The row of one j level of a subshell (ζ and Z_eff from its own ⟨1/r⟩)."""
+    values = moments(level.radial)
+    z_eff = orbital.n**2 * values[-1]
+    return SubshellSummary(
+        label=level.label, n=orbital.n, l=orbital.l, occupancy=level.occupancy,
+        zeta=z_eff / orbital.n, z_eff=z_eff, n_star=None, r_mean=values[1],
+        r_max=level.radial.r_max(), energy=level.energy,
+        nodes=tuple(float(x) for x in level.radial.nodes()), moments=values,
+        notes=orbital.notes, j=level.j)
 
 
 def subshell_table(orbitals: OrbitalSet) -> list[SubshellSummary]:
@@ -111,7 +134,8 @@ def subshell_table(orbitals: OrbitalSet) -> list[SubshellSummary]:
 
     Examples
     --------
-    The rows hold all the electrons; with hydrogenic orbitals (Z = 10) every length
+    A subshell split into j levels (``relativistic-lda``) gives one row per level,
+    labelled e.g. ``2p1/2``. The rows hold all the electrons; with hydrogenic orbitals (Z = 10) every length
     is hydrogen's divided by Z: ⟨r⟩_1s = 3/2Z and the 2s node at 2/Z:
 
     >>> from zeffir.core import build
@@ -121,4 +145,19 @@ def subshell_table(orbitals: OrbitalSet) -> list[SubshellSummary]:
     >>> round(table[0].r_mean, 12), [round(x, 12) for x in table[1].nodes]
     (0.15, [0.2])
     """
-    return [summarise(o) for o in orbitals.orbitals]
+    rows: list[SubshellSummary] = []
+    for o in orbitals.orbitals:
+        levels = [c for c in o.components if c.j is not None]
+        rows += [_summarise_level(o, c) for c in levels] if levels else [summarise(o)]
+    return rows
+
+
+def occupancy_text(value: float) -> str:
+    """An occupancy as a table shows it: ``2``, or ``0.667`` for a shared j population.
+
+    Examples
+    --------
+    >>> occupancy_text(2), occupancy_text(4 / 3), occupancy_text(6.0)
+    ('2', '1.333', '6')
+    """
+    return str(round(value)) if abs(value - round(value)) < 1e-9 else f"{value:.3f}"
