@@ -112,6 +112,21 @@ def main(out: Path) -> int:
                                       models="slater,hartree-fock", methods="koopmans,delta-scf"))
     shot("23-trend-ionization-1280x720")
     model.update(length_unit="bohr")
+    # Relativity: gold's 6s, Dirac (relativistic-lda) beside non-relativistic LDA.
+    window.resize(1600, 1000)
+    window.profile_dock.hide()
+    model.update(left=Source("Au", "relativistic-lda"), orbital=OrbitalChoice("6s"), view="radial",
+                 compare=CompareSettings(True, Source("Au", "lda"), False, overlay=True),
+                 radial=replace(model.state.radial, show_subshells=False, show_total=False,
+                                weighted=False, r_limit=8.0))
+    shot("24-radial-au-6s-relativistic-vs-lda")
+    model.update(compare=CompareSettings(True, Source("Au", "lda"), True),
+                 radial=replace(model.state.radial, show_subshells=True, show_total=True,
+                                weighted=True, r_limit=None))
+    shot("24b-radial-au-relativistic-vs-lda-whole-atom")
+    model.update(left=Source("Mg+", "lsda"), orbital=OrbitalChoice("3s"),
+                 compare=replace(model.state.compare, enabled=False))
+    shot("25-radial-mg-plus-lsd")
     window.worker.shutdown()
     # A Cancel: a worker-thread window, a long build (Kr, variational) cancelled at once.
     live = MainWindow(demo_state(), synchronous=False, settings=settings)  # type: ignore[arg-type]

@@ -7,9 +7,14 @@ from typing import Final
 __all__ = ["CAUTIONS", "REFERENCES"]
 
 CAUTIONS: Final[tuple[str, ...]] = (
-    "Non-relativistic models: for heavy elements the contraction of s and p orbitals "
-    "and spin–orbit splitting are missing.",
-    "No electron correlation unless a model states otherwise.",
+    "All models but relativistic-lda and scalar-relativistic-lda are non-relativistic: for "
+    "heavy elements the contraction of s and p orbitals and spin–orbit splitting are missing. "
+    "scalar-relativistic-lda has the contraction but no spin–orbit; relativistic-lda (Dirac) "
+    "has both, without the Breit interaction, QED or a finite nucleus.",
+    "No electron correlation unless a model states otherwise; the density-functional models "
+    "have the local (uniform-gas) correlation of VWN, not the atom's own.",
+    "Kohn–Sham eigenvalues are not ionization energies, except the highest occupied one under "
+    "the exact functional; in the local-density approximations it lies several eV too high.",
     "Point nucleus.",
     "Densities of open subshells are spherically averaged.",
     "Results are model estimates for insight and figures, not a substitute for validated "
@@ -43,6 +48,12 @@ REFERENCES: Final[tuple[str, ...]] = (
     "R. G. Parr and W. Yang, Density-Functional Theory of Atoms and Molecules (1989); R. McWeeny, "
     "Methods of Molecular Quantum Mechanics (1989) — pair densities and exchange holes.",
     "F. Hund, Linienspektren (1927); Condon & Shortley (1935) — term symbols, Hund's rules.",
+    "W. Kohn and L. J. Sham, Phys. Rev. 140, A1133 (1965); S. H. Vosko, L. Wilk and M. Nusair, "
+    "Can. J. Phys. 58, 1200 (1980) — Kohn–Sham LDA and LSD.",
+    "D. D. Koelling and B. N. Harmon, J. Phys. C 10, 3107 (1977) — scalar-relativistic equation; "
+    "A. H. MacDonald and S. H. Vosko, J. Phys. C 12, 2977 (1979) — relativistic exchange.",
+    "S. Kotochigova, Z. H. Levine, E. L. Shirley, M. D. Stiles and C. W. Clark, Phys. Rev. A 55, "
+    "191 (1997); NIST SRD 141 — density-functional reference energies.",
     "CODATA recommended values, via scipy.constants.",
     "C. A. Brewer, ColorBrewer (RdBu); S. van der Walt and N. Smith, viridis — colour maps.",
 )

@@ -253,6 +253,15 @@ def lda_cases() -> None:
         report("lda_table_sweep_wall", time.perf_counter() - start, "s", "<= 60")
         gaps = sum(p.value is None for p in trend.series[0].points)
         print(f"  ({92 - gaps} of 92 atoms)", flush=True)
+    # The spin-polarised and relativistic variants on the same atoms (no goal is set for
+    # them; recorded so that a slowdown shows).
+    build("He", "relativistic-lda")  # loads the compiled Adams–Moulton loops once
+    for spec, model in (("Fe", "lsda"), ("U", "scalar-relativistic-lda"), ("Xe", "relativistic-lda"),
+                        ("U", "relativistic-lda")):
+        start = time.perf_counter()
+        build(spec, model)
+        short = {"lsda": "lsda", "scalar-relativistic-lda": "scrlda", "relativistic-lda": "rlda"}[model]
+        report(f"{short}_{spec.lower()}_wall", time.perf_counter() - start, "s", "recorded")
 
 
 def trend_cases() -> None:

@@ -65,3 +65,25 @@ def test_further_radial_moments_are_optional_columns(window):
     assert float(rows["3d"][8]) == pytest.approx(expected["3d"].moments[2], abs=1e-4)
     assert float(rows["3d"][10]) == pytest.approx(expected["3d"].moments[-3], abs=1e-4)
     assert rows["1s"][10] == "—"  # ⟨r⁻³⟩ diverges for s
+
+
+def test_j_levels_sit_beside_the_other_series_and_select_their_subshell(window):
+    window.apply(window.state.with_changes(
+        left=Source("Mg", "relativistic-lda"), orbital=OrbitalChoice("3s"),
+        compare=CompareSettings(True, Source("Mg", "lda"))))
+    table = window.table
+    labels = [table.item(r, 0).text().rstrip(" *") for r in range(table.rowCount())]
+    assert labels == ["1s1/2", "1s", "2s1/2", "2s", "2p1/2", "2p3/2", "2p", "3s1/2", "3s"]
+    # j populations of the filled 2p: 2 and 4 electrons.
+    assert [table.item(r, 1).text() for r in (4, 5)] == ["2", "4"]
+    table.selectRow(5)  # 2p3/2
+    assert window.state.orbital.subshell == "2p"
+    assert window.problem() is None
+
+
+def test_spin_eigenvalues_are_in_the_energy_cell_tooltip(window):
+    window.apply(window.state.with_changes(left=Source("Mg+", "lsda"), orbital=OrbitalChoice("3s")))
+    table = window.table
+    row = [table.item(r, 0).text().rstrip(" *") for r in range(table.rowCount())].index("3s")
+    tip = table.item(row, 7).toolTip()
+    assert "ε↓ (majority) -0.4404" in tip and "ε↑ -0.3884" in tip

@@ -93,9 +93,11 @@ class SubshellTable(QTableWidget):
         length_unit : {"bohr", "angstrom"}
             Display units (Å and eV, or bohr and hartree).
         """
-        order = list(dict.fromkeys(row.label for _, rows in series for row in rows))
-        placed = [(name, row) for label in order for name, rows in series
-                  for row in rows if row.label == label]
+        # Grouped by subshell nl, so a series' j levels (2p1/2, 2p3/2) sit beside
+        # another series' 2p.
+        order = list(dict.fromkeys(row.subshell for _, rows in series for row in rows))
+        placed = [(name, row) for subshell in order for name, rows in series
+                  for row in rows if row.subshell == subshell]
         rows = [row for _, row in placed]
         self._series = [name for name, _ in placed]
         self.setColumnHidden(SERIES_COLUMN, len(series) < 2)

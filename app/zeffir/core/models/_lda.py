@@ -101,9 +101,14 @@ class KohnShamModel:
             notes += (f"speed of light c = {result.c} (hartree atomic units, NIST's value)",)
         energy_parts = (("kinetic", result.kinetic), ("nuclear", result.nuclear),
                         ("hartree", result.hartree), ("xc", result.xc))
+        # −V/T: 2 for exchange alone (it scales like the Coulomb terms); LDA correlation
+        # does not, and moves the ratio by a few 10⁻³ (Levy & Perdew, Phys. Rev. A 32,
+        # 2010 (1985)). Without a non-relativistic kinetic energy there is no such ratio.
+        virial = (None if result.c is not None
+                  else -(result.nuclear + result.hartree + result.xc) / result.kinetic)
         return OrbitalSet(configuration, self.name, tuple(orbitals),
                           total_energy=float(result.total_energy), notes=notes,
-                          energy_components=energy_parts)
+                          energy_components=energy_parts, virial_ratio=virial)
 
     def _subshell(self, sub: Subshell, occ: int, parts: list[KohnShamOrbital],
                   r: np.ndarray) -> SubshellOrbital:

@@ -33,7 +33,7 @@ from zeffir.core.orbitals import OrbitalSet
 __all__ = ["CacheEntry", "DiskCache", "default_cache_directory"]
 
 #: Bumped when the layout of an entry changes.
-_ENTRY_FORMAT = 2  # 2: orbital sets carry energy_components
+_ENTRY_FORMAT = 3  # 2: orbital sets carry energy_components; 3: subshells carry components
 
 
 def default_cache_directory() -> Path:
