@@ -7,7 +7,7 @@ from typing import Any
 
 from zeffir import __version__
 from zeffir.cli._common import JSON_FORMAT_VERSION, _finite_or_none
-from zeffir.core.properties._summary import occupancy_text
+from zeffir.core.properties import occupancy_text
 
 
 def table_json(spec: str, model: str) -> dict[str, Any]:

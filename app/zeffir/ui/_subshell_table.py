@@ -10,7 +10,7 @@ from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QTableWidget, QTab
 
 import zeffir.core
 from zeffir.core import SubshellSummary
-from zeffir.core.properties._summary import occupancy_text
+from zeffir.core.properties import occupancy_text
 
 __all__ = ["COLUMNS", "SubshellTable"]
 

@@ -12,6 +12,7 @@ scalar-relativistic and Dirac approximations (the ``lda``, ``lsda``,
 
 from zeffir.core.dft._kohn_sham import (
     APPROXIMATIONS,
+    SHORT_NAMES,
     KohnShamError,
     KohnShamOrbital,
     KohnShamResult,
@@ -34,6 +35,7 @@ from zeffir.core.dft._xc_spin import lsda_xc
 __all__ = [
     "APPROXIMATIONS",
     "LDA_TOLERANCE",
+    "SHORT_NAMES",
     "SPEED_OF_LIGHT",
     "KohnShamError",
     "KohnShamOrbital",

@@ -34,7 +34,7 @@ from zeffir.core.orbitals import (
 )
 
 if TYPE_CHECKING:
-    from zeffir.core.dft._kohn_sham import KohnShamOrbital
+    from zeffir.core.dft import KohnShamOrbital
 
 __all__ = ["KohnShamModel", "LDAModel", "kohn_sham_models"]
 
@@ -83,7 +83,7 @@ class KohnShamModel:
 
     def build(self, configuration: Configuration) -> OrbitalSet:
         """Solve the Kohn–Sham equations for ``configuration`` and tabulate its orbitals."""
-        from zeffir.core.dft._kohn_sham import SHORT_NAMES, solve_kohn_sham
+        from zeffir.core.dft import SHORT_NAMES, solve_kohn_sham
 
         result = solve_kohn_sham(configuration, self.approximation)
         r = result.grid.r
@@ -93,7 +93,8 @@ class KohnShamModel:
                 continue
             parts = [o for o in result.orbitals if (o.n, o.l) == (sub.n, sub.l)]
             orbitals.append(self._subshell(sub, occ, parts, r))
-        notes = (f"Kohn–Sham {SHORT_NAMES[self.approximation]}, {_EFFECTS[self.approximation]} "
+        short, effects = SHORT_NAMES[self.approximation], _EFFECTS[self.approximation]
+        notes: tuple[str, ...] = (f"Kohn–Sham {short}, {effects} "
                  f"({result.iterations} iterations on {result.grid.points} grid points); energy parts: "
                  f"kinetic {result.kinetic:.6f}, nuclear {result.nuclear:.6f}, "
                  f"Hartree {result.hartree:.6f}, exchange-correlation {result.xc:.6f} hartree",)
@@ -123,15 +124,15 @@ class KohnShamModel:
         else:
             filled = [p for p in parts if p.occupation > 0]
             weight = sum(p.occupation for p in filled)
-            amplitude = sum(p.occupation * p.p for p in filled) / weight
-            density = sum(p.occupation * p.density for p in filled) / weight
+            amplitude = np.sum([p.occupation * p.p for p in filled], axis=0) / weight
+            density = np.sum([p.occupation * p.density for p in filled], axis=0) / weight
             density = density / _integral(r, density)
             radial = TabulatedSpinorRadial(n, l, r, amplitude / r, density)
             # An empty spin orbital that the potential does not bind has no eigenvalue
             # and no radial function, so it is left out.
             components = tuple(self._component(p, r) for p in parts if p.energy is not None)
             if parts[0].j is not None:
-                energy = sum(p.occupation * p.energy for p in filled) / weight
+                energy = sum(p.occupation * p.energy for p in filled if p.energy is not None) / weight
                 if len(parts) > 1:
                     remark += "; ε of the subshell is the population-weighted mean of its j levels"
             else:

@@ -5,9 +5,10 @@ from zeffir.core.properties._summary import (
     MOMENT_POWERS,
     SubshellSummary,
     moments,
+    occupancy_text,
     subshell_table,
     summarise,
 )
 
 __all__ = ["MOMENT_POWERS", "EnergySummary", "SubshellSummary", "energy_summary", "moments",
-           "subshell_table", "summarise"]
+           "occupancy_text", "subshell_table", "summarise"]
