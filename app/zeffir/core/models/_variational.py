@@ -34,6 +34,7 @@ __all__ = [
     "VariationalResult",
     "coefficient_derivatives",
     "energy_and_gradient",
+    "guard_subshells",
     "mixing_pairs",
     "optimise_exponents",
     "orthogonalised_radials",
@@ -328,6 +329,11 @@ class VariationalResult:
         ∂E/∂ln ζ, then ∂E/∂θ, at the optimum (hartree), each below :data:`GRADIENT_TOLERANCE`.
     state : OptimisationState
         The final state (iterations, evaluations, energy).
+    guards : tuple of Subshell
+        Empty subshells below an occupied one of the same l (see :func:`guard_subshells`);
+        their fixed Slater-type functions keep the occupied orbitals orthogonal to them.
+    guard_zetas : tuple of float
+        Their exponents (Slater's rules, n* = n).
     """
 
     configuration: Configuration
@@ -338,6 +344,14 @@ class VariationalResult:
     potential: float
     gradient: tuple[float, ...]
     state: OptimisationState
+    guards: tuple[Subshell, ...] = ()
+    guard_zetas: tuple[float, ...] = ()
+
+    @property
+    def basis(self) -> tuple[tuple[Subshell, ...], tuple[float, ...]]:
+        """The Slater-type functions behind the orbitals: occupied subshells, then guards."""
+        occupied = tuple(s for s, _ in self.configuration.occupations)
+        return occupied + self.guards, self.zetas + self.guard_zetas
 
     @property
     def energy(self) -> float:
@@ -348,6 +362,36 @@ class VariationalResult:
     def virial_ratio(self) -> float:
         """-V/T; 2 at an optimum, since every ζ scaled together is one of the variations."""
         return -self.potential / self.kinetic
+
+
+def guard_subshells(configuration: Configuration) -> tuple[tuple[Subshell, ...], tuple[float, ...]]:
+    """The empty subshells n'l below an occupied nl, with their Slater's-rules exponents.
+
+    An excited configuration such as He 1s¹ 3s¹ leaves 2s empty. A nodeless 3s function
+    orthogonalised only against 1s can take the 2s's place, and the energy then falls
+    below that of the state asked for (even below the exact energy). Each such empty
+    subshell gets a fixed Slater-type function r^{n'−1}e^{−ζr}, ζ = (Z − σ)/n' with σ
+    the screening an electron there would feel (Slater's rules, n* = n), which enters
+    the Gram–Schmidt orthonormalisation of its l but carries no electron: the occupied
+    orbital above it then has a node for it, as the orbital of the state asked for does
+    (the node-counting choice of numerical Hartree–Fock, C. Froese Fischer, *The
+    Hartree–Fock Method for Atoms*, 1977, §6.3, made here within the minimal basis).
+
+    Examples
+    --------
+    >>> from zeffir.core import parse_spec
+    >>> subshells, zetas = guard_subshells(parse_spec("He 1s1 3s1"))
+    >>> [s.label for s in subshells], [round(z, 3) for z in zetas]
+    (['2s'], [0.575])
+    >>> guard_subshells(parse_spec("Ne"))
+    ((), ())
+    """
+    occupied = {s for s, occ in configuration.occupations if occ > 0}
+    guards = sorted({Subshell(n, sub.l) for sub in occupied for n in range(sub.l + 1, sub.n)} - occupied,
+                    key=lambda s: (s.n, s.l))
+    zetas = tuple(max(configuration.Z - slater_screening(configuration, g), 0.1 * configuration.Z) / g.n
+                  for g in guards)
+    return tuple(guards), zetas
 
 
 def _starting_zetas(configuration: Configuration) -> tuple[float, ...]:
@@ -428,9 +472,12 @@ def optimise_exponents(
     from zeffir.core.energy import hund_energy_expression
     from zeffir.core.models._sto_energy import StoEnergy
 
-    subshells = tuple(s for s, _ in configuration.occupations)
+    occupied = tuple(s for s, _ in configuration.occupations)
+    guards, guard_zetas = guard_subshells(configuration)
+    subshells = occupied + guards
+    fixed = np.log(np.asarray(guard_zetas, dtype=float))
     pairs = mixing_pairs(configuration)
-    m = len(subshells)
+    m = len(occupied)
     closed_form = StoEnergy(hund_energy_expression(configuration), subshells)
     lower, upper = math.log(ZETA_MIN), math.log(ZETA_MAX_PER_Z * configuration.Z)
     bounds = [(lower, upper)] * m + [(-MAX_MIXING, MAX_MIXING)] * len(pairs)
@@ -446,7 +493,10 @@ def optimise_exponents(
         if (should_stop is not None and should_stop()) or ambient_should_stop():
             raise OptimisationCancelled("exponent optimisation cancelled", last)
         evaluations += 1
-        return energy_and_gradient(closed_form, pairs, x)
+        # The guards' exponents are fixed: they sit between the free exponents and the angles.
+        kinetic, potential, grad = energy_and_gradient(closed_form, pairs,
+                                                       np.concatenate([x[:m], fixed, x[m:]]))
+        return kinetic, potential, np.concatenate([grad[:m], grad[m + fixed.size:]])
 
     def fun(y: FloatArray) -> tuple[float, FloatArray]:
         nonlocal last
@@ -510,8 +560,9 @@ def optimise_exponents(
         raise OptimisationError(
             f"{configuration.spec}: no stationary point after {iteration} iterations "
             f"(largest |dE/dx| = {np.max(np.abs(grad)):.2e} Eh; {message})", state)
-    return VariationalResult(configuration, zetas, mixing, orthogonalised_radials(subshells, zetas, mixing),
-                             kinetic, potential, tuple(float(g) for g in grad), state)
+    radials = orthogonalised_radials(subshells, zetas + guard_zetas, mixing)[:m]
+    return VariationalResult(configuration, zetas, mixing, radials, kinetic, potential,
+                             tuple(float(g) for g in grad), state, guards, guard_zetas)
 
 
 @dataclass(frozen=True)
@@ -568,19 +619,46 @@ class VariationalModel:
         from zeffir.core.energy import hund_energy_expression
         from zeffir.core.models._sto_energy import StoEnergy
 
+        if configuration.n_electrons == 1:
+            return self._one_electron(configuration)
         result = optimise_exponents(configuration)
-        subshells = tuple(s for s, _ in configuration.occupations)
+        subshells, zetas = result.basis
         epsilon = StoEnergy(hund_energy_expression(configuration), subshells).orbital_energies(
-            result.zetas, orthonormal_coefficients(subshells, result.zetas, result.mixing))
+            zetas, orthonormal_coefficients(subshells, zetas, result.mixing))
         orbitals = []
         for (sub, occ), radial, zeta, eps in zip(configuration.occupations, result.radials, result.zetas,
-                                                 epsilon, strict=True):
+                                                 epsilon[:len(result.zetas)], strict=True):
             notes: tuple[str, ...] = ()
             if isinstance(radial, SlaterExpansionRadial):
                 notes = (f"{sub.label}: a combination of this configuration's {sub.label[-1]}-type "
                          "Slater functions (orthonormalised); ζ is the exponent of its own one",)
             orbitals.append(SubshellOrbital(sub, occ, radial, zeta, zeta * sub.n, float(sub.n),
                                             float(eps) if occ > 0 else None, notes))
+        notes = ("total energy: Hund determinant, single-zeta Slater-type functions",)
+        for guard, zeta in zip(result.guards, result.guard_zetas, strict=True):
+            above = ", ".join(s.label for s, _ in configuration.occupations
+                              if s.l == guard.l and s.n > guard.n)
+            notes += (f"{guard.label} is empty: {above} kept orthogonal to a fixed Slater-type {guard.label} "
+                      f"function (ζ = {zeta:.4f} bohr⁻¹ from Slater's rules), so that it keeps its node "
+                      f"there instead of falling into the empty subshell",)
         return OrbitalSet(configuration, self.name, tuple(orbitals), total_energy=result.energy,
-                          notes=("total energy: Hund determinant, single-zeta Slater-type functions",),
-                          virial_ratio=-result.potential / result.kinetic)
+                          notes=notes, virial_ratio=-result.potential / result.kinetic)
+
+    def _one_electron(self, configuration: Configuration) -> OrbitalSet:
+        """A single electron: the optimum is the hydrogen-like orbital itself.
+
+        r^l L(r) e^{−ζr} with its n − l − 1 nodes is a single-zeta function; orthogonal to
+        the lower levels and optimised over ζ it is the exact orbital, ζ = Z/n and
+        ε = −Z²/2n² (Bethe & Salpeter 1957, §3), with −V/T = 2.
+        """
+        from zeffir.core.orbitals import HydrogenicRadial
+
+        z = float(configuration.Z)
+        (sub, occ), = configuration.occupations
+        energy = -(z**2) / (2 * sub.n**2)
+        orbital = SubshellOrbital(sub, occ, HydrogenicRadial(sub.n, sub.l, z), z / sub.n, z, float(sub.n),
+                                  energy, (f"{sub.label}: one electron — the hydrogen-like orbital, "
+                                           "which is the single-zeta optimum with its radial nodes",))
+        return OrbitalSet(configuration, self.name, (orbital,), total_energy=energy,
+                          notes=("total energy: one electron in the field of the nucleus, exact",),
+                          virial_ratio=2.0)
