@@ -429,7 +429,9 @@ def optimise_exponents(
 
     Notes
     -----
-    χ_a = N r^{n-1} e^{-ζ_a r} (n* = n, the Clementi–Raimondi form), one per subshell.
+    χ_a = N r^{n-1} e^{-ζ_a r} (n* = n, the Clementi–Raimondi form), one per subshell,
+    and one with a fixed exponent per empty subshell below an occupied one of its l
+    (:func:`guard_subshells`; no electron, no free exponent).
     The orbitals of one l are the χ of that l Gram–Schmidt orthonormalised in order
     of n, then rotated into each other by an angle θ for every pair of which one
     subshell is open (:func:`mixing_pairs`). Together with the exponents this spans
@@ -572,7 +574,12 @@ class VariationalModel:
     Notes
     -----
     One exponent per subshell, optimised for the configuration typed (ion or excited
-    configurations included) by :func:`optimise_exponents`. Orbitals of equal l are
+    configurations included) by :func:`optimise_exponents`. An empty subshell below an
+    occupied one of the same l gets a fixed Slater's-rules function that the orbitals
+    above are orthogonalised against (:func:`guard_subshells`), so an excited orbital
+    keeps its node there and the energy stays above the exact one (He 1s 3s ³S
+    −2.067226 Eh against the exact −2.068689, Accad, Pekeris & Schiff 1971); a single
+    electron gets its exact hydrogen-like orbital. Orbitals of equal l are
     orthonormal combinations of the Slater-type functions of that l (a minimal basis,
     as Clementi & Raimondi's); the reported ζ is each subshell's own exponent and
     Z_eff = ζn. The total energy is that of the Hund determinant (the M_L = L,
