@@ -209,6 +209,10 @@ def model_cases() -> None:
     start = time.perf_counter()
     build("Xe", "variational")
     report("variational_xe_wall", time.perf_counter() - start, "s", "<= 2")
+    # An excited configuration with guard functions for the empty 3s (recorded, no goal).
+    start = time.perf_counter()
+    build("Na [Ne] 4s1", "variational")
+    report("variational_na_4s_wall", time.perf_counter() - start, "s", "recorded")
     # He 1s1 5s1 has no self-consistent solution in the default basis: how long until it says so.
     start = time.perf_counter()
     try:
