@@ -579,7 +579,8 @@ class VariationalModel:
     above are orthogonalised against (:func:`guard_subshells`), so an excited orbital
     keeps its node there and the energy stays above the exact one (He 1s 3s ³S
     −2.067226 Eh against the exact −2.068689, Accad, Pekeris & Schiff 1971); a single
-    electron gets its exact hydrogen-like orbital. Orbitals of equal l are
+    electron gets its exact hydrogen-like orbital. With guard functions the exponents
+    cannot all be scaled together, so −V/T is not 2 there (He 1s 3s: 1.9955). Orbitals of equal l are
     orthonormal combinations of the Slater-type functions of that l (a minimal basis,
     as Clementi & Raimondi's); the reported ζ is each subshell's own exponent and
     Z_eff = ζn. The total energy is that of the Hund determinant (the M_L = L,
