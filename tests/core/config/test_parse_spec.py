@@ -90,3 +90,18 @@ def test_random_token_soup_raises_nothing_but_spec_error(tokens):
         parse_spec(" ".join(tokens))
     except SpecError:
         pass
+
+
+@pytest.mark.parametrize(("spec", "part"), [
+    ("Fe0+", "0+"), ("Fe+0", "0+"), ("Fe 02+", "02+"),
+    ("Na [[Ne]] 3s1", "[[Ne]]"), ("Na [Ne]] 3s1", "[Ne]]"),
+    ("Na [Ne] 3s\u0661", "3s\u0661"),          # an Arabic-Indic digit one
+    ("\u0662\u0666", "\u0662\u0666"),              # Arabic-Indic 26
+    ("Fe 3d\u00b2", "3d\u00b2"),                   # a superscript two
+])
+def test_the_parser_is_strict_where_the_notation_is(spec, part):
+    # Only ASCII digits, charges without a zero, a core in exactly one pair of brackets:
+    # each refusal names the part typed.
+    with pytest.raises(SpecError) as caught:
+        parse_spec(spec)
+    assert part in str(caught.value)

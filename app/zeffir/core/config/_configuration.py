@@ -31,9 +31,10 @@ __all__ = [
 #: (NIST ASD: every neutral atom, the ions of the shipped table) or derived by rule.
 Origin = Literal["typed", "observed", "derived"]
 
-_ELEMENT: Final = re.compile(r"^([A-Za-z]{1,3}|\d{1,3})(?:(\d*)([+-])|([+-])(\d+))?$")
-_CHARGE: Final = re.compile(r"^(?:(\d*)([+-])|([+-])(\d+))$")
-_LOOKS_LIKE_SUBSHELL: Final = re.compile(r"^\d+[a-zA-Z]\d*$")
+# re.ASCII: only the digits 0–9 count (Python's \d also takes Arabic-Indic and other digits).
+_ELEMENT: Final = re.compile(r"^([A-Za-z]{1,3}|\d{1,3})(?:(\d*)([+-])|([+-])(\d+))?$", re.ASCII)
+_CHARGE: Final = re.compile(r"^(?:(\d*)([+-])|([+-])(\d+))$", re.ASCII)
+_LOOKS_LIKE_SUBSHELL: Final = re.compile(r"^\d+[a-zA-Z]\d*$", re.ASCII)
 _SEPARATORS: Final = re.compile(r"[\s.,;]+")
 _MAX_SPEC_LENGTH: Final[int] = 500
 
@@ -160,6 +161,9 @@ def format_with_core(occupations: tuple[tuple[Subshell, int], ...]) -> str:
 
 def _charge_value(sign: str, digits: str) -> int:
     size = int(digits) if digits else 1
+    if size == 0 or digits.startswith("0"):
+        raise SpecError(f"{digits}{sign}: write a charge as +, 2+, 3- …, without a zero "
+                        "(a neutral atom has no charge sign)")
     return size if sign == "+" else -size
 
 
@@ -399,8 +403,8 @@ def _read_configuration(tokens: list[str]) -> tuple[tuple[Subshell, int], ...]:
     source: dict[Subshell, str] = {}
     for token in tokens:
         if token.startswith("[") or token.endswith("]"):
-            name = token.strip("[]")
-            if not (token.startswith("[") and token.endswith("]")) or name not in NOBLE_GAS_CORES:
+            name = token[1:-1] if token.startswith("[") and token.endswith("]") else ""
+            if name not in NOBLE_GAS_CORES:
                 cores = " ".join(f"[{c}]" for c in NOBLE_GAS_CORES)
                 raise SpecError(f"{token}: unknown core (use one of {cores})")
             if occupation:

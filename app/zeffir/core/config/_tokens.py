@@ -15,7 +15,7 @@ NOBLE_GAS_CORES: Final[dict[str, int]] = {
     "He": 2, "Ne": 10, "Ar": 18, "Kr": 36, "Xe": 54, "Rn": 86, "Og": 118,
 }
 
-_TOKEN: Final = re.compile(r"^(\d+)([a-zA-Z])(\d*)$")
+_TOKEN: Final = re.compile(r"^(\d+)([a-zA-Z])(\d*)$", re.ASCII)  # 0–9 only
 
 
 def parse_subshell_token(token: str) -> tuple[Subshell, int]:
