@@ -109,3 +109,47 @@ def test_new_files_get_the_usual_permissions_not_private_ones(tmp_path):
     finally:
         os.umask(mask)
     assert (tmp_path / "f.txt").stat().st_mode & 0o777 == 0o644
+
+
+def test_special_files_are_refused_and_kept(tmp_path):
+    # A FIFO is neither opened (it would block) nor replaced by a regular file.
+    import os
+    import stat
+
+    from zeffir.export import ExportError, check_target, write_atomic
+
+    fifo = tmp_path / "pipe.csv"
+    os.mkfifo(fifo)
+    for call in (lambda: write_atomic(fifo, "x"), lambda: check_target(fifo)):
+        with pytest.raises(ExportError, match="not a regular file"):
+            call()
+    assert stat.S_ISFIFO(os.stat(fifo).st_mode)
+
+
+def test_long_names_up_to_the_limit_are_written_and_longer_ones_refused_early(tmp_path):
+    from zeffir.export import MAX_NAME_BYTES, ExportError, check_target, write_atomic
+
+    # 255 bytes in all: the temporary name, which adds a prefix and a random part, is
+    # shortened to fit instead of failing.
+    longest = tmp_path / ("a" * (MAX_NAME_BYTES - 4) + ".csv")
+    assert write_atomic(longest, "x").read_text() == "x"
+    assert sorted(p.name for p in tmp_path.iterdir()) == [longest.name]
+    too_long = tmp_path / ("b" * MAX_NAME_BYTES + ".csv")
+    with pytest.raises(ExportError, match="259 bytes long; at most 255"):
+        check_target(too_long)
+    with pytest.raises(ExportError, match="bytes long"):
+        write_atomic(too_long, "x")
+
+
+def test_a_full_disk_in_a_compressing_writer_is_a_clean_refusal(tmp_path):
+    import zlib
+
+    from zeffir.export import ExportError, atomic_path
+
+    target = tmp_path / "figure.pdf"
+    target.write_text("old")
+    with pytest.raises(ExportError, match="is the disk full"), atomic_path(target) as temporary:
+        temporary.write_bytes(b"partial")
+        raise zlib.error("Error -3 while compressing data")
+    assert target.read_text() == "old"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["figure.pdf"]

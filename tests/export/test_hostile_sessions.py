@@ -434,3 +434,14 @@ def test_a_utf8_byte_order_mark_is_harmless(tmp_path):
     # Some editors write one; the session reads as without it.
     with_mark = _write(tmp_path, b"\xef\xbb\xbf" + _dumps(_document()).encode(), "bom.zeffir")
     assert load_session(with_mark) == load_session(_write(tmp_path, _document(), "plain.zeffir"))
+
+
+def test_a_fifo_is_refused_without_opening_it(tmp_path):
+    import os
+
+    from zeffir.export import SessionError, load_session
+
+    fifo = tmp_path / "session.zeffir"
+    os.mkfifo(fifo)
+    with pytest.raises(SessionError, match="not a regular file"):
+        load_session(fifo)

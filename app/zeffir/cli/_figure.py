@@ -362,12 +362,13 @@ def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewStat
 
 def _figure(args: argparse.Namespace) -> int:
     from zeffir.core import set_compiled_kernels
-    from zeffir.export import DPI_RANGE, export_view
+    from zeffir.export import DPI_RANGE, check_target, export_view
 
     # One picture: the plain-numpy kernels finish before numba would have loaded.
     set_compiled_kernels(bool(args.compiled))
     if not DPI_RANGE[0] <= args.dpi <= DPI_RANGE[1]:
         raise _InputError(f"--dpi {args.dpi}: must be between {DPI_RANGE[0]} and {DPI_RANGE[1]}")
+    check_target(args.out)  # a bad --out is refused before the figure is computed
     state = figure_state(args)
     written = export_view(state, args.out, width=args.width, dpi=args.dpi)
     print(f"wrote {written}")

@@ -109,6 +109,9 @@ def _check_out(path: str) -> None:
         raise _InputError(f"--out {path}: a trend is written as {', '.join(TREND_FORMATS)}")
     if not target.parent.is_dir():
         raise _InputError(f"--out {path}: the folder {target.parent} does not exist")
+    from zeffir.export import check_target
+
+    check_target(target)  # not a special file, a name the file system takes
 
 
 def _format_trend(scene: Any, trend: Any) -> str:

@@ -4,7 +4,7 @@ The window and the command line both call :func:`export_view`; the format follow
 the file's suffix. Sessions (``.zeffir``) store the view state as JSON.
 """
 
-from zeffir.export._atomic import atomic_file, atomic_path, write_atomic
+from zeffir.export._atomic import MAX_NAME_BYTES, atomic_file, atomic_path, check_target, write_atomic
 from zeffir.export._data import CAUTION, DATA_FORMATS, FORMAT_VERSION, unit_token, write_data
 from zeffir.export._errors import ExportError, SessionError
 from zeffir.export._figures import DPI_RANGE, FIGURE_FORMATS, write_figure
@@ -35,6 +35,7 @@ __all__ = [
     "EXPORT_FORMATS",
     "FIGURE_FORMATS",
     "FORMAT_VERSION",
+    "MAX_NAME_BYTES",
     "MAX_NESTING",
     "MAX_SESSION_BYTES",
     "PROFILE_SKIPROWS",
@@ -46,6 +47,7 @@ __all__ = [
     "SessionError",
     "atomic_file",
     "atomic_path",
+    "check_target",
     "export_view",
     "load_session",
     "profile_column_names",

@@ -15,13 +15,15 @@ from __future__ import annotations
 import contextlib
 import os
 import secrets
+import zlib
 from collections.abc import Iterator
 from pathlib import Path
 from typing import BinaryIO
 
 from zeffir.export._errors import ExportError
 
-__all__ = ["atomic_file", "atomic_path", "cannot_write", "resolve_link", "write_atomic"]
+__all__ = ["MAX_NAME_BYTES", "atomic_file", "atomic_path", "cannot_write", "check_target", "resolve_link",
+           "write_atomic"]
 
 _ATTEMPTS = 16
 #: Links followed before a chain is taken for a loop (Linux's own limit is 40).
@@ -34,11 +36,44 @@ def cannot_write(path: str | os.PathLike[str], error: OSError) -> ExportError:
     return ExportError(f"{os.fspath(path)}: cannot write ({reason})")
 
 
+#: Longest file name (bytes) the common file systems take (ext4, APFS, NTFS: 255).
+MAX_NAME_BYTES = 255
+
+
 def _check_target(path: Path) -> None:
     if path.name in ("", ".", ".."):
         raise ExportError(f"{path}: cannot write (not a file name)")
+    size = len(os.fsencode(path.name))
+    if size > MAX_NAME_BYTES:  # first: asking the file system about such a name fails
+        raise ExportError(f"{path}: cannot write (the file name is {size} bytes long; at most "
+                          f"{MAX_NAME_BYTES})")
     if path.is_dir():
         raise ExportError(f"{path}: cannot write (Is a directory)")
+    if path.exists() and not path.is_file():
+        # A FIFO, a device or a socket: replacing it with a regular file would destroy it,
+        # and writing into it could block forever.
+        raise ExportError(f"{path}: cannot write (not a regular file)")
+
+
+def check_target(path: str | os.PathLike[str]) -> None:
+    """Refuse early a path :func:`atomic_path` would refuse (name, folder, special file).
+
+    Callers that compute for a while before writing (a figure, a trend) call it first,
+    so a bad ``--out`` is reported before the work, not after.
+
+    Raises
+    ------
+    ExportError
+        With the reason, e.g. ``'<path>: cannot write (not a regular file)'``.
+    """
+    requested = Path(path)
+    _check_target(requested)
+    target = resolve_link(requested)
+    if target != requested:
+        _check_target(target)
+    folder = target.parent if str(target.parent) else Path(".")
+    if not folder.is_dir():
+        raise ExportError(f"{requested}: cannot write (the folder {folder} does not exist)")
 
 
 def resolve_link(path: Path) -> Path:
@@ -89,7 +124,10 @@ def _open_temporary(path: Path, requested: Path) -> tuple[Path, int]:
     flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
     for _ in range(_ATTEMPTS):
         # Keep the requested suffix last, for writers that pick a format from it.
-        temporary = path.with_name(f".{path.stem}.{secrets.token_hex(4)}.tmp{requested.suffix}")
+        # The stem is shortened where the temporary name would pass the file-name limit.
+        room = MAX_NAME_BYTES - len(os.fsencode(f"..{'0' * 8}.tmp{requested.suffix}"))
+        stem = os.fsdecode(os.fsencode(path.stem)[:max(room, 1)]).rstrip("\ufffd") or "z"
+        temporary = path.with_name(f".{stem}.{secrets.token_hex(4)}.tmp{requested.suffix}")
         try:
             return temporary, os.open(temporary, flags, 0o666)
         except FileExistsError:
@@ -177,6 +215,12 @@ def atomic_path(path: str | os.PathLike[str]) -> Iterator[Path]:
         if isinstance(error, ExportError):
             raise
         raise cannot_write(requested, error) from error
+    except zlib.error as error:
+        # Compressing writers (PDF, PNG, NPZ) report a failed write, e.g. a full disk,
+        # as a zlib error rather than an OSError.
+        _discard(temporary)
+        raise ExportError(f"{requested}: cannot write (the data could not be written out: "
+                          f"{error}; is the disk full?)") from error
     except BaseException:
         _discard(temporary)
         raise

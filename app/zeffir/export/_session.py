@@ -137,6 +137,9 @@ def load_session(path: str | os.PathLike[str]) -> ViewState:
 
 def _read_document(source: Path) -> dict[str, Any]:
     """The file's top-level JSON object, or :class:`SessionError` for any file-level problem."""
+    if source.exists() and not source.is_file():
+        # A FIFO or a device: opening it could block forever, and it holds no session.
+        raise SessionError(f"{source}: cannot read (not a regular file)")
     try:
         with source.open("rb") as stream:
             raw = stream.read(MAX_SESSION_BYTES + 1)
