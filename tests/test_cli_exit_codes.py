@@ -129,3 +129,27 @@ def test_the_table_and_the_window_take_the_correlation_energy_from_one_place(cap
     # against the Hartree–Fock limit (-128.5471 Eh, Bunge et al. 1993) is about -0.390 Eh.
     assert summary.correlation == pytest.approx(-0.3905, abs=2e-3)
     assert table_json("Ne", "hartree-fock-average")["correlation_energy_hartree"] is None
+
+
+def test_a_bad_out_is_refused_before_the_figure_is_computed(tmp_path, capsys):
+    fifo = tmp_path / "pipe.png"
+    os.mkfifo(fifo)
+    for out, reason in ((fifo, "not a regular file"), (tmp_path / ("x" * 300 + ".png"), "bytes long")):
+        status = main(["figure", "Ne", "--quiet", "--out", str(out)])
+        err = capsys.readouterr().err
+        assert status == EXIT_BAD_INPUT and reason in err and "Traceback" not in err
+    assert fifo.exists() and not fifo.is_file()
+
+
+def test_negative_numbers_in_exponent_notation_are_values(tmp_path, capsys):
+    out = tmp_path / "offset.npz"
+    status = main(["figure", "Ne", "--view", "slice", "--resolution", "16", "--offset", "-1e-1",
+                   "--normal", "-1e0", "0", "1", "--quiet", "--out", str(out)])
+    assert status == 0 and out.exists(), capsys.readouterr().err
+
+
+def test_refusals_name_the_option_typed(tmp_path, capsys):
+    status = main(["figure", "N", "--view", "pair", "--ref", "1e300", "0", "0", "--quiet",
+                   "--out", str(tmp_path / "p.png")])
+    err = capsys.readouterr().err
+    assert status == EXIT_BAD_INPUT and err.startswith("zeffir: --ref:") and "pair.reference" not in err

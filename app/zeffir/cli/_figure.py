@@ -360,8 +360,25 @@ def _with_colour_options(state: ViewState, args: argparse.Namespace) -> ViewStat
     return replace(state, **{subject.field: replace(part, colour=colour)})
 
 
+#: The state fields the figure options set, by the option's name (for messages).
+_OPTION_OF_FIELD = {
+    "pair.reference": "--ref", "slice.offset": "--offset", "slice.normal": "--normal",
+    "slice.extent": "--extent", "slice.resolution": "--resolution", "slice.contours": "--contours",
+    "radial.r_limit": "--r-max", "slice.plane": "--plane",
+}
+
+
+def _in_option_names(error: Exception) -> Exception:
+    """The same refusal, naming the option typed instead of the state field it sets."""
+    text = str(error)
+    for field, option in _OPTION_OF_FIELD.items():
+        if text.startswith(f"{field}:"):
+            return _InputError(option + text[len(field):])
+    return error
+
+
 def _figure(args: argparse.Namespace) -> int:
-    from zeffir.core import set_compiled_kernels
+    from zeffir.core import ZeffirError, set_compiled_kernels
     from zeffir.export import DPI_RANGE, check_target, export_view
 
     # One picture: the plain-numpy kernels finish before numba would have loaded.
@@ -369,7 +386,10 @@ def _figure(args: argparse.Namespace) -> int:
     if not DPI_RANGE[0] <= args.dpi <= DPI_RANGE[1]:
         raise _InputError(f"--dpi {args.dpi}: must be between {DPI_RANGE[0]} and {DPI_RANGE[1]}")
     check_target(args.out)  # a bad --out is refused before the figure is computed
-    state = figure_state(args)
+    try:
+        state = figure_state(args)
+    except (ZeffirError, _InputError) as error:
+        raise _in_option_names(error) from None
     written = export_view(state, args.out, width=args.width, dpi=args.dpi)
     print(f"wrote {written}")
     return 0

@@ -3,17 +3,34 @@
 from __future__ import annotations
 
 import argparse
+import re
 
 from zeffir import __version__
 from zeffir.cli._common import _EXIT_CODES_TEXT, UNIT_CHOICES, _UnitsAction
 from zeffir.cli._figure import _add_figure_parser
 from zeffir.cli._trend import _add_trend_parser
 
+#: A negative number as a value, in any notation float() reads: -3, -.5, -1e4, -2.5E-3.
+_NEGATIVE_NUMBER = re.compile(r"^-(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$")
+
+
+class _Parser(argparse.ArgumentParser):
+    """argparse, except that ``--offset -1e4`` reads -1e4 as the value, not as an option.
+
+    argparse takes a token for a negative number only when it looks like ``-3`` or
+    ``-0.5``; its check is the ``_negative_number_matcher`` attribute, widened here to
+    exponent notation. Subcommand parsers are made by the same class.
+    """
+
+    def __init__(self, *args: object, **kwargs: object) -> None:
+        super().__init__(*args, **kwargs)  # type: ignore[arg-type]
+        self._negative_number_matcher = _NEGATIVE_NUMBER
+
 
 def _parser() -> argparse.ArgumentParser:
     from zeffir.core import DEFAULT_MODEL, model_names
 
-    parser = argparse.ArgumentParser(
+    parser = _Parser(
         prog="zeffir",
         description="Orbitals, densities and figures for many-electron atoms. "
         "With no command, opens the window on the built-in demo (or on --session FILE).",
@@ -21,7 +38,7 @@ def _parser() -> argparse.ArgumentParser:
         epilog="commands: table, terms, figure, trend (zeffir COMMAND --help for each), demo\n\n"
         + _EXIT_CODES_TEXT,
     )
-    chatter = argparse.ArgumentParser(add_help=False)
+    chatter = _Parser(add_help=False)
     talk = chatter.add_argument_group("progress")
     talk.add_argument("--progress", action="store_true",
                       help="report each step of a long computation on stderr (what, iteration, "
