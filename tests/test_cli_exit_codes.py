@@ -153,3 +153,13 @@ def test_refusals_name_the_option_typed(tmp_path, capsys):
                    "--out", str(tmp_path / "p.png")])
     err = capsys.readouterr().err
     assert status == EXIT_BAD_INPUT and err.startswith("zeffir: --ref:") and "pair.reference" not in err
+
+
+def test_a_refused_session_is_a_message_not_a_modal_box(tmp_path, capsys):
+    # Checked before any window exists, so a scripted or headless start never waits on a
+    # dialog no one can dismiss.
+    bad = tmp_path / "bad.zeffir"
+    bad.write_text('{"kind": "other"}', encoding="utf-8")
+    status = main(["--session", str(bad)])
+    err = capsys.readouterr().err
+    assert status == EXIT_BAD_INPUT and err.startswith("zeffir: --session ") and "not a Zeffir session" in err

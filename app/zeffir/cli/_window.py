@@ -30,6 +30,18 @@ def _has_display() -> bool:
 
 
 def _window(session: str | None) -> int:
+    if session is not None:
+        # Read the session before any window exists: a refused file is a one-line message
+        # and exit 2, not a modal box that a headless or scripted start cannot dismiss.
+        from zeffir.export import SessionError, load_session
+
+        try:
+            load_session(session)
+        except SessionError as error:
+            from zeffir.cli._common import EXIT_BAD_INPUT
+
+            print(f"zeffir: --session {error}", file=sys.stderr)
+            return EXIT_BAD_INPUT
     if not _has_display():
         print("zeffir: no display found, so the window cannot open; showing the demo as text "
               "(use 'zeffir table' and 'zeffir figure' without a display).", file=sys.stderr)
