@@ -85,13 +85,18 @@ def test_a_library_without_a_known_package_is_named_with_a_way_to_find_it(x11_de
     assert "apt-file search" in err and "sudo apt install" not in err
 
 
-def test_a_complete_plugin_opens_the_window(x11_desktop, monkeypatch, capsys):
+def test_a_complete_plugin_opens_the_window(x11_desktop, monkeypatch, capsys, tmp_path):
+    from zeffir.export import save_session
+    from zeffir.ui import demo_state
+
+    session = tmp_path / "mine.zeffir"
+    save_session(session, demo_state())  # a refused file would stop before the window
     calls = _fake_ldd(monkeypatch, LDD_COMPLETE)
     opened = _window_opened(monkeypatch)
-    assert main(["--session", "mine.zeffir"]) == 0
+    assert main(["--session", str(session)]) == 0
     out, err = capsys.readouterr()
     assert len(calls) == 1
-    assert opened == ["mine.zeffir"]
+    assert opened == [str(session)]
     assert out == "" and err == ""
 
 
