@@ -9,7 +9,12 @@ import numpy as np
 import pytest
 
 from zeffir.cli import _parser, figure_state, main, parse_orbital
-from zeffir.core import ANGSTROM_PER_BOHR, QuantumNumberError
+from zeffir.core import (
+    ANGSTROM_PER_BOHR,
+    QuantumNumberError,
+    compiled_kernels_enabled,
+    set_compiled_kernels,
+)
 from zeffir.state import OrbitalChoice
 
 
@@ -134,3 +139,19 @@ def test_options_build_the_expected_state():
                     "--no-markers", "--no-total").radial
     assert (radial.quantity, radial.weighted, radial.log_r, radial.r_limit) == ("Q", False, True, 20.0)
     assert not radial.show_markers and not radial.show_total and radial.show_subshells
+
+
+@pytest.mark.parametrize("before", [True, False])
+def test_a_figure_run_in_process_gives_the_kernel_choice_back(tmp_path, capsys, before):
+    # zeffir figure takes the plain kernels for its one picture; a script (or a test) that
+    # calls main() keeps the choice it had, whether the figure was written or refused.
+    previous = set_compiled_kernels(before)
+    try:
+        assert main(["figure", "Na", "--view", "slice", "--resolution", "24",
+                     "--out", str(tmp_path / "s.npz")]) == 0
+        assert compiled_kernels_enabled() is before
+        assert main(["figure", "Na", "--dpi", "5", "--out", str(tmp_path / "s.png")]) == 2
+        assert compiled_kernels_enabled() is before
+    finally:
+        set_compiled_kernels(previous)
+    capsys.readouterr()

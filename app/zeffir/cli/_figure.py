@@ -378,11 +378,22 @@ def _in_option_names(error: Exception) -> Exception:
 
 
 def _figure(args: argparse.Namespace) -> int:
-    from zeffir.core import ZeffirError, set_compiled_kernels
+    from zeffir.core import set_compiled_kernels
+
+    # One picture: the plain-numpy kernels finish before numba would have loaded. The
+    # choice is the process's, so a caller running several commands in one process
+    # (a script, the test suite) gets its own choice back afterwards.
+    previous = set_compiled_kernels(bool(args.compiled))
+    try:
+        return _write_figure(args)
+    finally:
+        set_compiled_kernels(previous)
+
+
+def _write_figure(args: argparse.Namespace) -> int:
+    from zeffir.core import ZeffirError
     from zeffir.export import DPI_RANGE, check_target, export_view
 
-    # One picture: the plain-numpy kernels finish before numba would have loaded.
-    set_compiled_kernels(bool(args.compiled))
     if not DPI_RANGE[0] <= args.dpi <= DPI_RANGE[1]:
         raise _InputError(f"--dpi {args.dpi}: must be between {DPI_RANGE[0]} and {DPI_RANGE[1]}")
     check_target(args.out)  # a bad --out is refused before the figure is computed

@@ -5,10 +5,15 @@ repeated pictures fast, but loading numba and its cached machine code costs 1–
 and the first run after installation compiles for about 10 s. A process that draws
 many pictures (the window, a script sweeping a parameter) gains; a one-shot command
 loses. The plain-numpy paths give the same values (the tests compare both), so the
-choice is one of speed only.
+choice is one of speed only. The one visible difference is far out: the compiled
+kernels interpolate a radial table that ends at the radius beyond which less than
+1e-16 of the electron lies, and give exact zeros past it, where the plain path
+evaluates the tiny values themselves.
 
 They are on by default, off when the environment variable ``ZEFFIR_NO_NUMBA`` is set
-to a non-empty value. ``zeffir figure`` turns them off unless ``--compiled`` is given.
+to a non-empty value. ``zeffir figure`` turns them off for its
+picture unless ``--compiled`` is given, and gives the previous choice back when it
+returns.
 """
 
 from __future__ import annotations
