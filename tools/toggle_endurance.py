@@ -26,6 +26,7 @@ import argparse
 import faulthandler
 import os
 import sys
+import tempfile
 import time
 from pathlib import Path
 
@@ -71,7 +72,10 @@ def main(argv: list[str] | None = None) -> int:
 
     pg.setConfigOptions(imageAxisOrder="row-major", antialias=True)
     app = QApplication.instance() or QApplication([])
-    settings = QSettings(os.devnull, QSettings.Format.IniFormat)
+    # Settings in a throw-away directory: QSettings saves by renaming a new file over
+    # its target, which would replace a device such as /dev/null with a regular file.
+    scratch = tempfile.TemporaryDirectory(prefix="zeffir-endurance-")
+    settings = QSettings(str(Path(scratch.name) / "settings.ini"), QSettings.Format.IniFormat)
     window = MainWindow(demo_state(), settings=settings)  # type: ignore[arg-type]
     width, height = (int(part) for part in args.size.lower().split("x"))
     window.resize(width, height)
@@ -155,6 +159,8 @@ def main(argv: list[str] | None = None) -> int:
     faulthandler.dump_traceback_later(args.watchdog, exit=True)
     app.exec()
     faulthandler.cancel_dump_traceback_later()
+    del settings
+    scratch.cleanup()
     print("no stall" if not stalls else f"{len(stalls)} stalls:\n  " + "\n  ".join(stalls))
     return 1 if stalls else 0
 

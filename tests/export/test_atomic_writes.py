@@ -153,3 +153,24 @@ def test_a_full_disk_in_a_compressing_writer_is_a_clean_refusal(tmp_path):
         raise zlib.error("Error -3 while compressing data")
     assert target.read_text() == "old"
     assert sorted(p.name for p in tmp_path.iterdir()) == ["figure.pdf"]
+
+
+def test_a_compressor_error_on_a_full_file_system_says_so(tmp_path, monkeypatch):
+    import os
+    import zlib
+
+    from zeffir.export import ExportError, atomic_path
+
+    class Full:
+        f_bavail, f_frsize = 3, 4096  # 12 KiB left
+
+    monkeypatch.setattr(os, "statvfs", lambda _folder: Full())
+    target = tmp_path / "figure.pdf"
+    target.write_text("old")
+    with pytest.raises(ExportError, match=r"cannot write \(no space left on the device; the "
+                                          r"compressor stopped: Error -2"):
+        with atomic_path(target) as temporary:
+            temporary.write_bytes(b"partial")
+            raise zlib.error("Error -2 while flushing: inconsistent stream state")
+    assert target.read_text() == "old"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["figure.pdf"]

@@ -219,11 +219,23 @@ def atomic_path(path: str | os.PathLike[str]) -> Iterator[Path]:
         # Compressing writers (PDF, PNG, NPZ) report a failed write, e.g. a full disk,
         # as a zlib error rather than an OSError.
         _discard(temporary)
-        raise ExportError(f"{requested}: cannot write (the data could not be written out: "
-                          f"{error}; is the disk full?)") from error
+        if _out_of_space(target.parent):
+            reason = f"no space left on the device; the compressor stopped: {error}"
+        else:
+            reason = f"the compressed data could not be written out: {error}; is the disk full?"
+        raise ExportError(f"{requested}: cannot write ({reason})") from error
     except BaseException:
         _discard(temporary)
         raise
+
+
+def _out_of_space(folder: Path, room: int = 1 << 20) -> bool:
+    """True if the file system holding ``folder`` has less than ``room`` bytes free for us."""
+    try:
+        stats = os.statvfs(folder)
+    except (OSError, AttributeError):  # no statvfs (Windows) or the folder is gone
+        return False
+    return stats.f_bavail * stats.f_frsize < room
 
 
 @contextlib.contextmanager

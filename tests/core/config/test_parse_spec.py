@@ -93,7 +93,7 @@ def test_random_token_soup_raises_nothing_but_spec_error(tokens):
 
 
 @pytest.mark.parametrize(("spec", "part"), [
-    ("Fe0+", "0+"), ("Fe+0", "0+"), ("Fe 02+", "02+"),
+    ("Fe0+", "0+:"), ("Fe+0", "+0:"), ("Fe 02+", "02+:"), ("Fe +02", "+02:"),
     ("Na [[Ne]] 3s1", "[[Ne]]"), ("Na [Ne]] 3s1", "[Ne]]"),
     ("Na [Ne] 3s\u0661", "3s\u0661"),          # an Arabic-Indic digit one
     ("\u0662\u0666", "\u0662\u0666"),              # Arabic-Indic 26

@@ -159,10 +159,11 @@ def format_with_core(occupations: tuple[tuple[Subshell, int], ...]) -> str:
     return format_configuration(occupations)
 
 
-def _charge_value(sign: str, digits: str) -> int:
+def _charge_value(sign: str, digits: str, sign_first: bool = False) -> int:
     size = int(digits) if digits else 1
     if size == 0 or digits.startswith("0"):
-        raise SpecError(f"{digits}{sign}: write a charge as +, 2+, 3- …, without a zero "
+        typed = f"{sign}{digits}" if sign_first else f"{digits}{sign}"
+        raise SpecError(f"{typed}: write a charge as +, 2+, 3- …, without a zero "
                         "(a neutral atom has no charge sign)")
     return size if sign == "+" else -size
 
@@ -362,7 +363,7 @@ def parse_spec(text: str) -> Configuration:
     if sign:
         charge = _charge_value(sign, digits)
     elif sign2:
-        charge = _charge_value(sign2, digits2)
+        charge = _charge_value(sign2, digits2, sign_first=True)
     if tokens and _CHARGE.match(tokens[0]):
         if sign or sign2:
             raise SpecError(f"{tokens[0]}: the charge is already given in {head}")
@@ -370,7 +371,7 @@ def parse_spec(text: str) -> Configuration:
         charge_match = _CHARGE.match(charge_token)
         assert charge_match is not None
         d1, s1, s2, d2 = charge_match.groups()
-        charge = _charge_value(s1, d1) if s1 else _charge_value(s2, d2)
+        charge = _charge_value(s1, d1) if s1 else _charge_value(s2, d2, sign_first=True)
     ion = f"{atom.symbol}{_charge_suffix(charge)}"
     electrons = atom.Z - charge
     if electrons <= 0:
