@@ -21,6 +21,7 @@ would be quadratic, and Python refuses past 4300 digits anyway).
 from __future__ import annotations
 
 import json
+import math
 import os
 from pathlib import Path
 from typing import Any, Final
@@ -162,7 +163,8 @@ def _read_document(source: Path) -> dict[str, Any]:
         raise SessionError(f"{source}: not a Zeffir session (not UTF-8 text: byte {error.start} "
                            "is invalid)") from None
     try:
-        document = json.loads(text, object_pairs_hook=_unique_keys, parse_int=_bounded_int)
+        document = json.loads(text, object_pairs_hook=_unique_keys, parse_int=_bounded_int,
+                              parse_float=_float_as_written)
     except json.JSONDecodeError as error:
         raise SessionError(f"{source}: not a Zeffir session: invalid JSON at line {error.lineno}, "
                            f"column {error.colno} ({error.msg})") from None
@@ -191,6 +193,22 @@ def _unique_keys(pairs: list[tuple[str, Any]]) -> dict[str, Any]:
             raise _DuplicateKeyError(key)
         document[key] = value
     return document
+
+
+class _OverflowedFloat(float):
+    """A number literal too large for a float (read as ±inf), keeping its text for messages."""
+
+    typed_text: str
+
+
+def _float_as_written(text: str) -> float:
+    """A float literal; one that overflows (``1e400``) remembers how it was written."""
+    value = float(text)
+    if math.isinf(value):
+        overflowed = _OverflowedFloat(value)
+        overflowed.typed_text = text if len(text) <= 40 else f"{text[:40]}…"
+        return overflowed
+    return value
 
 
 def _bounded_int(digits: str) -> int:

@@ -509,6 +509,9 @@ def _shown(value: object) -> str:
     """
     if isinstance(value, str):
         return repr(value) if len(value) <= 40 else f"{value[:40]!r}… ({len(value)} characters)"
+    typed = getattr(value, "typed_text", None)  # a number a session file wrote too large
+    if isinstance(value, float) and isinstance(typed, str):
+        return f"{typed} (too large for a floating-point number)"
     if isinstance(value, bool) or value is None or isinstance(value, float):
         return repr(value)
     if isinstance(value, int):
