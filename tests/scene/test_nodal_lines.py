@@ -154,3 +154,24 @@ def test_comparison_panels_and_difference_draw_the_nodal_plane(resolution):
         # Both ψ are odd in z, so is their difference: z = 0 is a node of all three.
         on_node = points[np.abs(points[:, 1]) <= 0.5 * pixel + 1e-9 * EXTENT, 0]
         assert _covers(on_node, -EXTENT, EXTENT, gap=pixel + 1e-9 * EXTENT), panel.title
+
+
+@pytest.mark.parametrize(("spec", "orbital", "quantity", "plane", "offset", "reason"), [
+    ("Na", OrbitalChoice("2p", "real", 0), "psi", "xy", 0.0, "(a nodal plane)"),
+    ("Na", OrbitalChoice("2p", "real", 0), "psi2", "xy", 0.0, "(a nodal plane)"),
+    ("Na", OrbitalChoice("3s"), "psi", "xz", -1e4, "(beyond the electrons' reach)"),
+    ("Na", OrbitalChoice("3s"), "density", "xz", 5e3, "(beyond the electrons' reach)"),
+])
+def test_a_plane_zero_throughout_says_why_in_its_title(spec, orbital, quantity, plane, offset, reason):
+    # ψ of 2p0 vanishes on z = 0 by symmetry; 1e4 bohr out, e^{-ζr} underflows to exactly 0.
+    settings = SliceSettings(plane=plane, offset=offset, extent=10.0, resolution=32,
+                             quantity=quantity)
+    scene = slice_scene(Source(spec, "slater"), orbital, settings)
+    assert not np.any(scene.values)
+    assert scene.title.endswith("zero everywhere on this plane " + reason)
+
+
+def test_a_plane_with_values_has_no_zero_note():
+    settings = SliceSettings(plane="xz", offset=1.0, extent=10.0, resolution=32, quantity="psi")
+    scene = slice_scene(Source("Na", "slater"), OrbitalChoice("3s"), settings)
+    assert np.any(scene.values) and "zero everywhere" not in scene.title

@@ -9,6 +9,7 @@ is selected and a running Qt application is left alone.
 from __future__ import annotations
 
 import os
+import textwrap
 from collections.abc import Sequence
 from dataclasses import replace
 from pathlib import Path
@@ -449,8 +450,11 @@ def _trim_height(figure: Figure) -> None:
 
 
 def _title_lines(*parts: str, limit: int = 46) -> str:
+    """The parts on one line if they fit in ``limit`` characters, else each on its own (wrapped)."""
     joined = "; ".join(parts)
-    return joined if len(joined) <= limit else "\n".join(parts)
+    if len(joined) <= limit:
+        return joined
+    return "\n".join(textwrap.fill(part, limit, break_long_words=False) for part in parts)
 
 
 def _slice_figure(scene: SliceScene, width: float) -> Figure:

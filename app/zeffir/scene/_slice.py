@@ -336,8 +336,14 @@ def slice_scene(source: Source, orbital: OrbitalChoice, settings: SliceSettings,
     factor = length_factor(length_unit, quantity.length_power)
     if factor != 1.0:
         values = values * factor
-    if settings.quantity != "density" and not np.any(values):
-        what += " — zero everywhere on this plane (a nodal plane)"
+    if not np.any(values):
+        # Every angular node of a real orbital is a plane or cone through the nucleus, so a
+        # plane off the nucleus that is zero throughout lies beyond the electrons' reach
+        # (the total density has no nodal plane at all).
+        if settings.quantity != "density" and plane.offset == 0.0:
+            what += " — zero everywhere on this plane (a nodal plane)"
+        else:
+            what += " — zero everywhere on this plane (beyond the electrons' reach)"
     signed = settings.quantity == "psi"
     colour = settings.colour
     log_scale = colour.log_scale and not signed
