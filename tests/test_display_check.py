@@ -1,6 +1,10 @@
 """Starting the window: a Qt platform plugin that cannot load is named, and the demo printed."""
 
+import os
 import re
+import shutil
+import subprocess
+import sys
 from pathlib import Path
 
 import pytest
@@ -180,3 +184,28 @@ def test_readme_apt_line_names_known_packages_of_the_xcb_libraries():
     for needed in ("libxcb-cursor0", "libxkbcommon-x11-0", "libxcb-icccm4", "libxcb-keysyms1",
                    "libegl1", "libgl1", "libfontconfig1", "libdbus-1-3"):
         assert needed in listed
+
+
+def test_a_display_with_too_few_colours_is_refused_in_one_line():
+    from zeffir.ui._app import MIN_COLOUR_DEPTH, colour_depth_problem
+
+    assert colour_depth_problem(None) is None and colour_depth_problem(24) is None
+    assert colour_depth_problem(MIN_COLOUR_DEPTH) is None  # 15- and 16-bit displays paint
+    message = colour_depth_problem(8)
+    assert message is not None and "\n" not in message
+    assert message.startswith("zeffir: the display has 8-bit colour")
+    assert "zeffir figure" in message
+
+
+@pytest.mark.skipif(shutil.which("xvfb-run") is None or shutil.which("Xvfb") is None,
+                    reason="needs xvfb-run and Xvfb to start an 8-bit X display")
+def test_an_8_bit_x_display_gets_a_refusal_not_a_crash(tmp_path):
+    # Qt's raster painter has no paint engine on an 8-bit visual and the process used to
+    # crash (SIGSEGV) at the first paint; the window now refuses before it is built.
+    env = {k: v for k, v in os.environ.items() if k not in ("QT_QPA_PLATFORM", "DISPLAY")}
+    env["HOME"] = str(tmp_path)  # the window's settings stay out of the user's home
+    result = subprocess.run(
+        ["xvfb-run", "-a", "-s", "-screen 0 1024x768x8", sys.executable, "-m", "zeffir"],
+        capture_output=True, text=True, timeout=120, env=env, check=False)
+    assert result.returncode == 2, result.stderr[-2000:]
+    assert "the display has 8-bit colour" in result.stderr
