@@ -7,7 +7,12 @@ Everything a script or notebook needs::
     orbitals.orbital("3s").z_eff          # 2.5074
 """
 
-from zeffir.core._acceleration import compiled_kernels_enabled, set_compiled_kernels
+from zeffir.core._acceleration import (
+    compiled_kernels_enabled,
+    compiled_solvers_enabled,
+    set_compiled_kernels,
+    set_compiled_solvers,
+)
 from zeffir.core._cancel import cancellation, progress_reporting
 from zeffir.core._errors import (
     ComputationCancelled,
@@ -79,6 +84,7 @@ __all__ = [
     "build",
     "cancellation",
     "compiled_kernels_enabled",
+    "compiled_solvers_enabled",
     "complex_harmonic",
     "cumulative_charge",
     "density_on_plane",
@@ -99,6 +105,7 @@ __all__ = [
     "real_labels",
     "resource_path",
     "set_compiled_kernels",
+    "set_compiled_solvers",
     "solid_harmonic",
     "spherical_density",
     "subshell_distributions",

@@ -10,6 +10,12 @@ kernels interpolate a radial table that ends at the radius beyond which less tha
 1e-16 of the electron lies, and give exact zeros past it, where the plain path
 evaluates the tiny values themselves.
 
+The radial equation solvers of the density-functional models (Numerov, Dirac and
+scalar-relativistic recurrences) have a choice of their own. Their Python loops are
+15-20 times slower than the compiled ones (a scalar-relativistic Rn takes 40 s
+instead of 2.4 s in ``zeffir figure``), so loading numba always pays there; only
+``ZEFFIR_NO_NUMBA`` or :func:`set_compiled_solvers` turns them off.
+
 They are on by default, off when the environment variable ``ZEFFIR_NO_NUMBA`` is set
 to a non-empty value. ``zeffir figure`` turns them off for its
 picture unless ``--compiled`` is given, and gives the previous choice back when it
@@ -20,9 +26,15 @@ from __future__ import annotations
 
 import os
 
-__all__ = ["compiled_kernels_enabled", "set_compiled_kernels"]
+__all__ = [
+    "compiled_kernels_enabled",
+    "compiled_solvers_enabled",
+    "set_compiled_kernels",
+    "set_compiled_solvers",
+]
 
 _enabled: bool = not os.environ.get("ZEFFIR_NO_NUMBA")
+_solvers_enabled: bool = not os.environ.get("ZEFFIR_NO_NUMBA")
 
 
 def compiled_kernels_enabled() -> bool:
@@ -62,4 +74,35 @@ def set_compiled_kernels(enabled: bool) -> bool:
     """
     global _enabled
     previous, _enabled = _enabled, bool(enabled)
+    return previous
+
+
+def compiled_solvers_enabled() -> bool:
+    """True when the density-functional radial solvers may use their compiled recurrences.
+
+    Returns
+    -------
+    bool
+        The process-wide choice (see the module notes); :func:`set_compiled_kernels`
+        does not change it.
+    """
+    return _solvers_enabled
+
+
+def set_compiled_solvers(enabled: bool) -> bool:
+    """Use (True) or avoid (False) the compiled radial solvers from now on; return the previous choice.
+
+    Parameters
+    ----------
+    enabled : bool
+        False makes the Numerov, Dirac and scalar-relativistic solvers run their
+        plain-Python loops (same values, much slower).
+
+    Returns
+    -------
+    bool
+        The choice in force before the call.
+    """
+    global _solvers_enabled
+    previous, _solvers_enabled = _solvers_enabled, bool(enabled)
     return previous

@@ -7,7 +7,7 @@ import math
 import numpy as np
 import pytest
 
-from zeffir.core import cancellation, parse_spec, progress_reporting, set_compiled_kernels
+from zeffir.core import cancellation, parse_spec, progress_reporting, set_compiled_solvers
 from zeffir.core._errors import ComputationCancelled
 from zeffir.core.dft._lda_atom import solve_lda
 from zeffir.core.dft._xc import lda_xc
@@ -26,11 +26,11 @@ def test_parts_add_up_and_the_electrons_are_all_there():
 
 
 def test_compiled_and_plain_paths_agree():
-    before = set_compiled_kernels(False)
+    before = set_compiled_solvers(False)
     try:
         plain = solve_lda(parse_spec("Na")).total_energy
     finally:
-        set_compiled_kernels(before)
+        set_compiled_solvers(before)
     assert solve_lda(parse_spec("Na")).total_energy == pytest.approx(plain, abs=1e-10)
 
 

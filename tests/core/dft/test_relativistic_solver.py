@@ -13,7 +13,7 @@ import math
 import numpy as np
 import pytest
 
-from zeffir.core import set_compiled_kernels
+from zeffir.core import set_compiled_solvers
 from zeffir.core.dft import LogGrid, RadialEigenError
 from zeffir.core.dft._relativistic_solver import (
     SPEED_OF_LIGHT,
@@ -91,11 +91,11 @@ def test_compiled_and_plain_loops_agree():
     grid = LogGrid.for_charge(47.0)
     v = -47.0 / grid.r * (1 + 0.3 * np.exp(-grid.r))
     compiled = solve_dirac(grid, v, 3, 2, 47.0)
-    before = set_compiled_kernels(False)
+    before = set_compiled_solvers(False)
     try:
         plain = solve_dirac(grid, v, 3, 2, 47.0)
     finally:
-        set_compiled_kernels(before)
+        set_compiled_solvers(before)
     assert plain.energy == pytest.approx(compiled.energy, abs=1e-10)
     np.testing.assert_allclose(plain.p, compiled.p, atol=1e-9)
 

@@ -26,7 +26,7 @@ from typing import Any
 
 import numpy as np
 
-from zeffir.core._acceleration import compiled_kernels_enabled
+from zeffir.core._acceleration import compiled_solvers_enabled
 from zeffir.core._errors import ModelError
 from zeffir.core.dft._radial_grid import LogGrid
 from zeffir.core.orbitals import FloatArray
@@ -67,7 +67,7 @@ def _compiled() -> Any:
 
 def _recurrences() -> tuple[Any, Any, bool]:
     """(outward, inward, takes arrays): compiled when enabled, else the Python loops."""
-    compiled = _compiled() if compiled_kernels_enabled() else None
+    compiled = _compiled() if compiled_solvers_enabled() else None
     if compiled is None:
         return _numerov_out, _numerov_in, False
     return compiled.numerov_out, compiled.numerov_in, True

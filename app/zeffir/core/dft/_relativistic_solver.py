@@ -34,7 +34,7 @@ from typing import Any
 
 import numpy as np
 
-from zeffir.core._acceleration import compiled_kernels_enabled
+from zeffir.core._acceleration import compiled_solvers_enabled
 from zeffir.core.dft import _two_component_kernels
 from zeffir.core.dft._radial_grid import LogGrid
 from zeffir.core.dft._radial_solver import DECAY, MAX_STEPS, RadialEigenError
@@ -97,7 +97,7 @@ def _compiled() -> Any:
 
 
 def _kernels() -> Any:
-    compiled = _compiled() if compiled_kernels_enabled() else None
+    compiled = _compiled() if compiled_solvers_enabled() else None
     return compiled or _two_component_kernels
 
 
