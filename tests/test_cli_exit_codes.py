@@ -98,6 +98,16 @@ def test_help_lists_every_view_groups_options_and_ends_with_examples():
     assert "examples:" in commands["terms"].format_help()
 
 
+def _default_interrupt() -> None:
+    """In the child before it starts: SIGINT back to its default action.
+
+    A suite started in the background by a shell without job control inherits SIGINT
+    ignored, and Python then keeps it ignored (as it should for a user's process): the
+    child would never see the Ctrl-C this test sends.
+    """
+    signal.signal(signal.SIGINT, signal.SIG_DFL)
+
+
 def test_ctrl_c_prints_one_line_exits_130_and_leaves_no_file(tmp_path):
     out = tmp_path / "kr.png"
     # A build that is sure to be long, interrupted after its first progress line: the
@@ -108,7 +118,7 @@ def test_ctrl_c_prints_one_line_exits_130_and_leaves_no_file(tmp_path):
     child = subprocess.Popen([sys.executable, "-m", "zeffir", "figure", "Kr", "--model",
                               "scalar-relativistic-lda", "--progress", "--out", str(out)],
                              stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True, env=env,
-                             cwd=tmp_path)
+                             cwd=tmp_path, preexec_fn=_default_interrupt)
     assert child.stderr is not None
     first = child.stderr.readline()  # the first progress line: the model is at work
     assert "ScRLDA iteration 1" in first
