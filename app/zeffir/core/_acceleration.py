@@ -33,8 +33,14 @@ __all__ = [
     "set_compiled_solvers",
 ]
 
-_enabled: bool = not os.environ.get("ZEFFIR_NO_NUMBA")
-_solvers_enabled: bool = not os.environ.get("ZEFFIR_NO_NUMBA")
+# The two process-wide choices: the grid kernels and the radial solvers.
+_choices: dict[str, bool] = dict.fromkeys(("kernels", "solvers"), not os.environ.get("ZEFFIR_NO_NUMBA"))
+
+
+def _swap(which: str, enabled: bool) -> bool:
+    """Set one of :data:`_choices` and return its previous value."""
+    previous, _choices[which] = _choices[which], bool(enabled)
+    return previous
 
 
 def compiled_kernels_enabled() -> bool:
@@ -55,7 +61,7 @@ def compiled_kernels_enabled() -> bool:
     >>> compiled_kernels_enabled() == before
     True
     """
-    return _enabled
+    return _choices["kernels"]
 
 
 def set_compiled_kernels(enabled: bool) -> bool:
@@ -72,9 +78,7 @@ def set_compiled_kernels(enabled: bool) -> bool:
     bool
         The choice in force before the call.
     """
-    global _enabled
-    previous, _enabled = _enabled, bool(enabled)
-    return previous
+    return _swap("kernels", enabled)
 
 
 def compiled_solvers_enabled() -> bool:
@@ -86,7 +90,7 @@ def compiled_solvers_enabled() -> bool:
         The process-wide choice (see the module notes); :func:`set_compiled_kernels`
         does not change it.
     """
-    return _solvers_enabled
+    return _choices["solvers"]
 
 
 def set_compiled_solvers(enabled: bool) -> bool:
@@ -103,6 +107,4 @@ def set_compiled_solvers(enabled: bool) -> bool:
     bool
         The choice in force before the call.
     """
-    global _solvers_enabled
-    previous, _solvers_enabled = _solvers_enabled, bool(enabled)
-    return previous
+    return _swap("solvers", enabled)
